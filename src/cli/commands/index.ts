@@ -1,0 +1,10 @@
+/** Every CLI command, in help order. A new command is one file in this folder plus one line here. */
+import type { Command } from 'commander';
+import type { CommandContext } from '../context.js';
+import { registerPair } from './pair.js';
+import { registerSpecies } from './species.js';
+
+export const commandRegistrars: Array<(program: Command, ctx: CommandContext) => void> = [
+  registerPair,
+  registerSpecies,
+];

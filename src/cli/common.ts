@@ -1,0 +1,47 @@
+/** Option parsers and helpers shared by the CLI commands. */
+import { InvalidArgumentError } from 'commander';
+import { parseSpeciesFile } from '../model/species-file.js';
+import { resolveSpecies } from '../model/builtin-species.js';
+import type { Species } from '../model/species.js';
+import type { CliIO } from './io.js';
+
+/** Commander parser for a positive number option. */
+export function positiveNumber(value: string): number {
+  const x = Number(value);
+  if (!(x > 0) || !Number.isFinite(x)) throw new InvalidArgumentError(`must be a finite number > 0, got "${value}"`);
+  return x;
+}
+
+/** Commander parser for an integer in [min, max]. */
+export function integerIn(min: number, max: number) {
+  return (value: string): number => {
+    const x = Number(value);
+    if (!Number.isInteger(x) || x < min || x > max) throw new InvalidArgumentError(`must be an integer from ${min} to ${max}, got "${value}"`);
+    return x;
+  };
+}
+
+/** Commander parser for one of a list of words. */
+export function oneOf<T extends string>(allowed: readonly T[]) {
+  return (value: string): T => {
+    if (!(allowed as readonly string[]).includes(value)) throw new InvalidArgumentError(`must be one of ${allowed.join(', ')}, got "${value}"`);
+    return value as T;
+  };
+}
+
+/** Read `--species FILE` (if given) into a name → species map. */
+export function loadSpeciesFile(io: CliIO, path: string | undefined): Map<string, Species> | undefined {
+  return path === undefined ? undefined : parseSpeciesFile(io.readFile(path), path);
+}
+
+/** Resolve positional species tokens against the file and the built-ins. */
+export function resolveAll(tokens: readonly string[], fromFile?: ReadonlyMap<string, Species>): Species[] {
+  return tokens.map((t) => resolveSpecies(t, fromFile));
+}
+
+/** The `--species FILE` help text, shared so every command says the same. */
+export const SPECIES_FILE_HELP = 'YAML or JSON file of species (top-level "species" mapping name → {kind, fields…})';
+
+/** The species-token help text. */
+export const SPECIES_TOKEN_HELP =
+  'a built-in name (see `dispole species`), a name from --species FILE, or an inline spec such as drude:q=1.2,m=0.4,w=0.9, drude:q=1,m=1,wx=0.8,wy=0.8,wz=1.1 or fit:alpha=1.38,C6=1.46,C8=14.1';

@@ -1,0 +1,29 @@
+/** The "perturbation" route: Rayleigh–Schrödinger perturbation theory in each species' local state space. */
+import type { Route } from '../route.js';
+import { d7 } from '../route.js';
+import { localSpaceOf } from '../capabilities.js';
+import { perturbationCoefficients, requiredQuanta } from './rspt.js';
+
+export const perturbationRoute: Route = {
+  name: 'perturbation',
+  summary: 'Rayleigh–Schrödinger perturbation theory in a product basis (exact for QDOs)',
+  unsupported: () => null,
+  run(A, B, options) {
+    const power = options.maxEnergyPower ?? 10;
+    const quanta = options.maxQuanta ?? requiredQuanta(power);
+    const r = perturbationCoefficients(localSpaceOf(A, quanta), localSpaceOf(B, quanta), { maxEnergyPower: power });
+    const { E5, D4a, D4b } = r.permanent;
+    const hasPermanent = E5 !== 0 || D4a.some((x) => x !== 0) || D4b.some((x) => x !== 0);
+    return {
+      name: 'perturbation',
+      C6: r.C6,
+      ...(r.C8 !== undefined ? { C8: r.C8 } : {}),
+      ...(r.C10 !== undefined ? { C10: r.C10 } : {}),
+      D7: d7(r.D7a[2], r.D7b[2]),
+      D7vectors: { a: r.D7a, b: r.D7b },
+      ...(hasPermanent ? { permanent: { E5, D4: d7(D4a[2], D4b[2]) } } : {}),
+      converged: true,
+      notes: [`harmonic truncation: ${quanta} quanta per centre for QDOs (exact at and above ${requiredQuanta(power)})`],
+    };
+  },
+};

@@ -1,0 +1,55 @@
+/** The common result shape of every route, so routes can be compared and reported side by side. */
+import type { Species } from '../model/species.js';
+import type { Vec3 } from '../model/types.js';
+
+export interface D7Triple {
+  /** lim R^7 mu_A,z, e·a0^8 (A at the origin, B at +R ẑ). */
+  a: number;
+  /** lim R^7 mu_B,z, e·a0^8. */
+  b: number;
+  /** a + b. */
+  total: number;
+}
+
+/** One route's coefficients (atomic units). Optional fields are absent when the route does not give them. */
+export interface RouteResult {
+  /** Route name as used in JSON: "perturbation", "response", "force-balance", "exact". */
+  name: string;
+  C6: number;
+  C8?: number;
+  C10?: number;
+  D7: D7Triple;
+  /** Full D7 vectors when the route gives all three components. */
+  D7vectors?: { a: Vec3; b: Vec3 };
+  /** Error estimates where the route has them (same keys as the values). */
+  error?: Partial<Record<'C6' | 'C8' | 'C10' | 'D7a' | 'D7b', number>>;
+  /** First-order (permanent-moment) terms, present when nonzero (anisotropic species). */
+  permanent?: { E5: number; D4: D7Triple };
+  /** False when the route did not reach its tolerance: its numbers are untrusted. */
+  converged: boolean;
+  /** Human notes (e.g. which kernel, basis size, what was assumed). */
+  notes: string[];
+}
+
+/** Options every route accepts; routes ignore what they do not use. */
+export interface RouteOptions {
+  /** Relative tolerance for quadratures and convergence loops. Default 1e-13. */
+  relTol?: number;
+  /** Harmonic truncation for the perturbation route (total quanta per centre); default: the exact minimum. */
+  maxQuanta?: number;
+  /** Highest dispersion power computed (6, 8 or 10). Default 10. */
+  maxEnergyPower?: 6 | 8 | 10;
+}
+
+/** A route: a named, independent way to compute the pair's coefficients. */
+export interface Route {
+  name: string;
+  /** One line for help and reports. */
+  summary: string;
+  /** null when the route can handle the pair, else the reason it cannot. */
+  unsupported(A: Species, B: Species): string | null;
+  run(A: Species, B: Species, options: RouteOptions): RouteResult;
+}
+
+/** Build a {@link D7Triple} from the two z components. */
+export const d7 = (a: number, b: number): D7Triple => ({ a, b, total: a + b });

@@ -1,0 +1,53 @@
+/**
+ * Built-in species, resolvable by name on the command line.
+ *
+ * The demo set is INVENTED for the worked examples: the noble-gas-like atoms of the fictional moon Tessaly
+ * (Quelon, Virid, Sorrel, Tarnet) and one elongated anisotropic centre (Spindlet). Their parameters are
+ * made up, chosen only to be of a realistic size; they describe no real substance.
+ */
+import { drude, drudeAnisotropic } from './drude.js';
+import { InputError } from './errors.js';
+import { parseInlineSpecies } from './species-kinds.js';
+import type { Species } from './species.js';
+
+const INVENTED = 'invented for the worked examples (fictional moon Tessaly); not a real substance';
+
+/** The invented demo species, in a fixed order. */
+export const demoSpecies: readonly Species[] = [
+  drude({ q: 1.1, m: 0.38, w: 0.72 }, 'Quelon', INVENTED),
+  drude({ q: 1.45, m: 0.52, w: 0.6 }, 'Virid', INVENTED),
+  drude({ q: 0.9, m: 0.31, w: 0.95 }, 'Sorrel', INVENTED),
+  drude({ q: 1.8, m: 0.6, w: 0.48 }, 'Tarnet', INVENTED),
+  drudeAnisotropic({ q: 1.2, m: 0.45, wx: 0.8, wy: 0.8, wz: 0.55 }, 'Spindlet', INVENTED),
+];
+
+/** Extra built-in collections (e.g. a sourced atom library) register here. */
+const collections: Array<() => readonly Species[]> = [() => demoSpecies];
+
+/** Register another collection of built-in species (used by data modules at import time). */
+export function registerBuiltinCollection(provider: () => readonly Species[]): void {
+  collections.push(provider);
+}
+
+/** All built-in species, demo set first. */
+export function builtinSpecies(): Species[] {
+  return collections.flatMap((c) => c());
+}
+
+/**
+ * Resolve a command-line species token: an inline spec (`kind:…`), a name from a species file,
+ * or a built-in name (case-insensitive). Unknown names list what is available.
+ */
+export function resolveSpecies(token: string, fromFile?: ReadonlyMap<string, Species>): Species {
+  if (token.includes(':')) return parseInlineSpecies(token);
+  const inFile = fromFile?.get(token);
+  if (inFile) return inFile;
+  const all = builtinSpecies();
+  const hit = all.find((s) => s.name === token) ?? all.find((s) => s.name.toLowerCase() === token.toLowerCase());
+  if (hit) return hit;
+  const names = [...(fromFile?.keys() ?? []), ...all.map((s) => s.name)];
+  throw new InputError(
+    token,
+    `is not a known species; use a built-in name (${names.join(', ')}), a name from --species FILE, or an inline spec like drude:q=1.2,m=0.4,w=0.9`,
+  );
+}
