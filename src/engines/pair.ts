@@ -32,7 +32,7 @@ export interface PairResult {
   /** The reference route's values. */
   coefficients: { C6: number; C8?: number; C10?: number; D7: D7Triple };
   routes: RouteResult[];
-  /** Routes that were asked for or default but could not handle the pair, with the reason. */
+  /** Routes that could not handle the pair, with the reason (a warning only when the route was asked for by name). */
   skipped: Array<{ name: string; reason: string }>;
   spread: Spread;
   /** True when every route converged and the spread is within `agreement`. */
@@ -82,7 +82,7 @@ export function computePair(a: Species, b: Species, options: PairOptions = {}): 
   for (const r of results) if (!r.converged) warnings.push(`route ${r.name} did not converge: its numbers are untrusted`);
   if (spread.max > agreement) warnings.push(`routes disagree: largest relative spread ${spread.max.toExponential(2)} > ${agreement.toExponential(0)}`);
   if (results.length < 2) warnings.push('only one route could run: no cross-check');
-  for (const s of skipped) warnings.push(`route ${s.name} skipped: ${s.reason}`);
+  if (options.routes) for (const s of skipped) warnings.push(`route ${s.name} skipped: ${s.reason}`);
   const ref = results[0];
   if (ref.permanent) {
     warnings.push(
