@@ -3,38 +3,39 @@ import { InputError, describeValue } from './errors.js';
 
 /** A finite number strictly greater than zero, else an {@link InputError} naming `field`. */
 export function requirePositive(field: string, value: unknown): number {
-  if (typeof value === 'string' && value.trim() !== '') value = Number(value);
-  if (typeof value !== 'number' || !(value > 0) || !Number.isFinite(value)) {
-    throw new InputError(field, `must be a finite number > 0, got ${describeValue(value)}`);
-  }
-  return value;
+  const x = asNumber(value);
+  if (!(x > 0) || !Number.isFinite(x)) throw new InputError(field, `must be a finite number > 0, got ${describeValue(value)}`);
+  return x;
+}
+
+/** A number, or a non-blank numeric string converted; anything else becomes NaN (and fails the checks). */
+function asNumber(value: unknown): number {
+  if (typeof value === 'number') return value;
+  if (typeof value === 'string' && value.trim() !== '') return Number(value);
+  return NaN;
 }
 
 /** A finite number (any sign). */
 export function requireFinite(field: string, value: unknown): number {
-  if (typeof value === 'string' && value.trim() !== '') value = Number(value);
-  if (typeof value !== 'number' || !Number.isFinite(value)) {
-    throw new InputError(field, `must be a finite number, got ${describeValue(value)}`);
-  }
-  return value;
+  const x = asNumber(value);
+  if (!Number.isFinite(x)) throw new InputError(field, `must be a finite number, got ${describeValue(value)}`);
+  return x;
 }
 
 /** An integer in [min, max]. */
 export function requireIntegerIn(field: string, value: unknown, min: number, max: number): number {
-  if (typeof value === 'string' && value.trim() !== '') value = Number(value);
-  if (typeof value !== 'number' || !Number.isInteger(value) || !(value >= min) || !(value <= max)) {
+  const x = asNumber(value);
+  if (!Number.isInteger(x) || !(x >= min) || !(x <= max)) {
     throw new InputError(field, `must be an integer from ${min} to ${max}, got ${describeValue(value)}`);
   }
-  return value;
+  return x;
 }
 
 /** A number in the closed range [min, max]. */
 export function requireInRange(field: string, value: unknown, min: number, max: number): number {
-  if (typeof value === 'string' && value.trim() !== '') value = Number(value);
-  if (typeof value !== 'number' || !(value >= min) || !(value <= max)) {
-    throw new InputError(field, `must be a number from ${min} to ${max}, got ${describeValue(value)}`);
-  }
-  return value;
+  const x = asNumber(value);
+  if (!(x >= min) || !(x <= max)) throw new InputError(field, `must be a number from ${min} to ${max}, got ${describeValue(value)}`);
+  return x;
 }
 
 /** One of a fixed list of strings. */

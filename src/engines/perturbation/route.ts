@@ -22,8 +22,13 @@ export const perturbationRoute: Route = {
       D7: d7(r.D7a[2], r.D7b[2]),
       D7vectors: { a: r.D7a, b: r.D7b },
       ...(hasPermanent ? { permanent: { E5, D4: d7(D4a[2], D4b[2]) } } : {}),
-      converged: true,
-      notes: [`harmonic truncation: ${quanta} quanta per centre for QDOs (exact at and above ${requiredQuanta(power)})`],
+      // a truncation below the exact minimum changes the numbers: flag them
+      converged: quanta >= requiredQuanta(power),
+      notes: [
+        quanta >= requiredQuanta(power)
+          ? `harmonic truncation for QDOs: ${quanta} quanta per centre (exact from ${requiredQuanta(power)} up)`
+          : `harmonic truncation ${quanta} is below the exact minimum ${requiredQuanta(power)}: numbers untrusted`,
+      ],
     };
   },
 };

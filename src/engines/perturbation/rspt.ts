@@ -79,9 +79,11 @@ export function perturbationCoefficients(A: LocalSpace, B: LocalSpace, options: 
 }
 
 /**
- * The number of quanta one centre can carry anywhere in the chains above: the D7 chain puts up to
- * 1 + 2 quanta on a centre (V2 then V3, then mu closes it), an energy term of order n puts n − 1.
+ * The fewest quanta per centre that make the harmonic truncation exact: a matrix element <0|V_n R0 V_n'|0> only
+ * sees states both sides reach, at most min(n, n') − 1 ≤ P/2 − 2 quanta on a centre for C_P (n + n' = P − 2);
+ * the D7 chain <0|mu R0 V2 R0 V3|0> (and its partners) needs 2. Lower truncations change the results
+ * (tests/engines/routes-agree.test.ts shows both).
  */
 export function requiredQuanta(maxEnergyPower: number): number {
-  return Math.max(3, maxEnergyPower - 5);
+  return Math.max(2, maxEnergyPower / 2 - 2);
 }
