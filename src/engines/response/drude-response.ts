@@ -16,7 +16,7 @@ import {
   drudeMultipolePolarisability,
   isotropicParameters,
 } from '../../model/drude.js';
-import { type Monomial, degree } from '../../hamiltonian/monomial.js';
+import { type Monomial, degree, monomialKey } from '../../hamiltonian/monomial.js';
 import type { IsotropicResponse, TensorResponse } from './response-model.js';
 
 /** Closed-form isotropic response of an isotropic QDO. */
@@ -53,10 +53,11 @@ export function drudeTensorResponse(s: DrudeSpecies): TensorResponse {
   const { q, m, w } = s;
   const len = w.map((wi) => 1 / Math.sqrt(2 * m * wi));
   const kz = m * w[2] * w[2];
-  // spectral lines of r^p|0>: excitation ω_n and amplitude, keyed by the excited state
-  const lineCache = new Map<string, Map<string, { omega: number; amp: number }>>();
+  const stateKey = (nx: number, ny: number, nz: number) => nx + 64 * ny + 4096 * nz;
+  // spectral lines of r^p|0>: excited state → [ω_n, <n|r^p|0>]
+  const lineCache = new Map<number, Map<number, [number, number]>>();
   const lines = (p: Monomial) => {
-    const key = p.join(',');
+    const key = monomialKey(p);
     let hit = lineCache.get(key);
     if (hit) return hit;
     hit = new Map();
@@ -65,20 +66,34 @@ export function drudeTensorResponse(s: DrudeSpecies): TensorResponse {
         for (const [nz, cz] of hermiteCoefficients(p[2])) {
           if (nx + ny + nz === 0) continue;
           const amp = cx * cy * cz * len[0] ** p[0] * len[1] ** p[1] * len[2] ** p[2];
-          hit.set(`${nx},${ny},${nz}`, { omega: nx * w[0] + ny * w[1] + nz * w[2], amp });
+          hit.set(stateKey(nx, ny, nz), [nx * w[0] + ny * w[1] + nz * w[2], amp]);
         }
     lineCache.set(key, hit);
     return hit;
   };
-  const chiCoord = (p: Monomial, pp: Monomial, u: number): number => {
-    if (degree(p) === 0 || degree(pp) === 0) return 0;
-    const a = lines(p);
-    const b = lines(pp);
-    let sum = 0;
-    for (const [state, x] of a) {
-      const y = b.get(state);
-      if (y) sum += (2 * x.omega * x.amp * y.amp) / (x.omega * x.omega + u * u);
+  // χ_{r^p, r^p'}(iu) = Σ 2ω a a'/(ω² + u²): the common lines as flat [ω², 2ω a a', …], cached per pair
+  const pairCache = new Map<number, Float64Array>();
+  const pairLines = (p: Monomial, pp: Monomial): Float64Array => {
+    const key = monomialKey(p) * 32768 + monomialKey(pp);
+    let hit = pairCache.get(key);
+    if (hit) return hit;
+    const out: number[] = [];
+    if (degree(p) > 0 && degree(pp) > 0) {
+      const b = lines(pp);
+      for (const [state, [omega, amp]] of lines(p)) {
+        const other = b.get(state);
+        if (other) out.push(omega * omega, 2 * omega * amp * other[1]);
+      }
     }
+    hit = Float64Array.from(out);
+    pairCache.set(key, hit);
+    return hit;
+  };
+  const chiCoord = (p: Monomial, pp: Monomial, u: number): number => {
+    const l = pairLines(p, pp);
+    const u2 = u * u;
+    let sum = 0;
+    for (let i = 0; i < l.length; i += 2) sum += l[i + 1] / (l[i] + u2);
     return sum;
   };
   const lower = (p: Monomial): Monomial => [p[0], p[1], p[2] - 1];

@@ -16,11 +16,11 @@ export const responseRoute: Route = {
   run(A, B, options): RouteResult {
     const isoA = isotropicResponseOf(A), isoB = isotropicResponseOf(B);
     let r: ResponseCoefficients;
-    if (isoA && isoB) r = isotropicResponseCoefficients(isoA, isoB, { relTol: options.relTol });
+    if (isoA && isoB) r = isotropicResponseCoefficients(isoA, isoB, { relTol: options.relTol, maxEnergyPower: options.maxEnergyPower });
     else {
       const tA = tensorResponseOf(A), tB = tensorResponseOf(B);
       if (!tA || !tB) throw new Error(this.unsupported(A, B) ?? 'response route unavailable');
-      r = tensorResponseCoefficients(tA, tB, { relTol: options.relTol });
+      r = tensorResponseCoefficients(tA, tB, { relTol: options.relTol, maxEnergyPower: options.maxEnergyPower });
     }
     const power = options.maxEnergyPower ?? 10;
     const { E5, D4a, D4b } = r.permanent;

@@ -23,6 +23,8 @@ import type { TensorResponse } from './response-model.js';
 export interface ResponseOptions {
   /** Relative tolerance of the quadrature. Default 1e-13. */
   relTol?: number;
+  /** Highest dispersion power computed (6, 8 or 10); higher ones come back as NaN. Default 10. */
+  maxEnergyPower?: 6 | 8 | 10;
 }
 
 /** Coefficients from the response route, each with its quadrature error estimate. */
@@ -47,39 +49,74 @@ const Z: Monomial = [0, 0, 1];
 /** Distinct (p, p') pairs of one side, so each response function is evaluated once per frequency. */
 class PairTable {
   readonly pairs: Array<[Monomial, Monomial]> = [];
+  /** The function at a probe frequency, to drop pairs that vanish by symmetry. */
+  readonly probe: number[] = [];
   private readonly index = new Map<number, number>();
+  constructor(
+    private readonly fn: (p: Monomial, q: Monomial, u: number) => number,
+    private readonly probeU: number,
+  ) {}
+  /** Index of (p, q), or −1 when its response vanishes identically (checked at two frequencies). */
   id(p: Monomial, q: Monomial): number {
     const key = monomialKey(p) * 32768 + monomialKey(q);
     let i = this.index.get(key);
     if (i === undefined) {
-      i = this.pairs.length;
-      this.pairs.push([p, q]);
+      const v = this.fn(p, q, this.probeU);
+      i = v === 0 && this.fn(p, q, 2.3 * this.probeU) === 0 ? -1 : this.pairs.length;
+      if (i >= 0) {
+        this.pairs.push([p, q]);
+        this.probe.push(v);
+      }
       this.index.set(key, i);
     }
     return i;
   }
-  evaluate(fn: (p: Monomial, q: Monomial, u: number) => number, u: number, out: Float64Array): void {
-    for (let i = 0; i < this.pairs.length; i++) out[i] = fn(this.pairs[i][0], this.pairs[i][1], u);
+  evaluate(u: number, out: Float64Array): void {
+    for (let i = 0; i < this.pairs.length; i++) out[i] = this.fn(this.pairs[i][0], this.pairs[i][1], u);
   }
+}
+
+/** Memoised static quantities of one centre: χ(0) and permanent moments. */
+function staticMemo(r: TensorResponse) {
+  const chi0 = new Map<number, number>();
+  const mean = new Map<number, number>();
+  return {
+    chi(p: Monomial, q: Monomial): number {
+      const key = monomialKey(p) * 32768 + monomialKey(q);
+      let v = chi0.get(key);
+      if (v === undefined) chi0.set(key, (v = r.chi(p, q, 0)));
+      return v;
+    },
+    dChi: (p: Monomial, q: Monomial): number => r.dChiDFz(p, q, 0),
+    mean(p: Monomial): number {
+      const key = monomialKey(p);
+      let v = mean.get(key);
+      if (v === undefined) mean.set(key, (v = r.mean(p)));
+      return v;
+    },
+  };
 }
 
 /** C6, C8, C10, D7 (z) of two centres with Cartesian response, by quadrature plus the static induction terms. */
 export function tensorResponseCoefficients(A: TensorResponse, B: TensorResponse, options: ResponseOptions = {}): ResponseCoefficients {
-  const chiA = new PairTable(), chiB = new PairTable(), dA = new PairTable(), dB = new PairTable();
+  const maxPower = options.maxEnergyPower ?? 10;
+  const chiA = new PairTable(A.chi, A.scale), chiB = new PairTable(B.chi, B.scale);
+  const dA = new PairTable(A.dChiDFz, A.scale), dB = new PairTable(B.dChiDFz, B.scale);
+  const sA = staticMemo(A), sB = staticMemo(B);
   // products: coefficient, index into A's table, into B's table, output slot; kind 0 χχ, 1 ∂χA χB, 2 χA ∂χB
   const prodC: number[] = [], prodA: number[] = [], prodB: number[] = [], prodSlot: number[] = [], prodKind: number[] = [];
   const statics = new Float64Array(5);
-  const probe = [A.scale, 0.37 * A.scale + 0.61 * B.scale];
 
   const add = (s: readonly CouplingTerm[], t: readonly CouplingTerm[], weight: number, slot: number, kind: 0 | 1 | 2) => {
     for (const k of s)
       for (const l of t) {
-        const fa = kind === 1 ? A.dChiDFz : A.chi;
-        const fb = kind === 2 ? B.dChiDFz : B.chi;
-        if (probe.every((u) => fa(k.pA, l.pA, u) === 0 || fb(k.pB, l.pB, u) === 0)) continue;
+        const ia = (kind === 1 ? dA : chiA).id(k.pA, l.pA);
+        if (ia < 0) continue;
+        const ib = (kind === 2 ? dB : chiB).id(k.pB, l.pB);
+        if (ib < 0) continue;
         prodC.push(weight * k.c * l.c);
-        prodA.push((kind === 1 ? dA : chiA).id(k.pA, l.pA));
-        prodB.push((kind === 2 ? dB : chiB).id(k.pB, l.pB));
+        prodA.push(ia);
+        prodB.push(ib);
         prodSlot.push(slot);
         prodKind.push(kind);
       }
@@ -88,26 +125,27 @@ export function tensorResponseCoefficients(A: TensorResponse, B: TensorResponse,
     for (const k of s)
       for (const l of t) {
         const c = k.c * l.c;
+        const mA = sA.mean(k.pA) * sA.mean(l.pA), mB = sB.mean(k.pB) * sB.mean(l.pB);
         if (slot < 3) {
-          statics[slot] += 0.5 * c * (A.chi(k.pA, l.pA, 0) * B.mean(k.pB) * B.mean(l.pB) + A.mean(k.pA) * A.mean(l.pA) * B.chi(k.pB, l.pB, 0));
+          statics[slot] += 0.5 * c * (sA.chi(k.pA, l.pA) * mB + mA * sB.chi(k.pB, l.pB));
         } else if (slot === 3) {
-          statics[3] +=
-            c * (A.dChiDFz(k.pA, l.pA, 0) * B.mean(k.pB) * B.mean(l.pB) +
-              (A.chi(k.pA, Z, 0) * A.mean(l.pA) + A.mean(k.pA) * A.chi(l.pA, Z, 0)) * B.chi(k.pB, l.pB, 0));
+          const fieldMoments = sA.chi(k.pA, Z) * sA.mean(l.pA) + sA.mean(k.pA) * sA.chi(l.pA, Z);
+          statics[3] += c * ((mB === 0 ? 0 : sA.dChi(k.pA, l.pA) * mB) + (fieldMoments === 0 ? 0 : fieldMoments * sB.chi(k.pB, l.pB)));
         } else {
-          statics[4] +=
-            c * (B.dChiDFz(k.pB, l.pB, 0) * A.mean(k.pA) * A.mean(l.pA) +
-              (B.chi(k.pB, Z, 0) * B.mean(l.pB) + B.mean(k.pB) * B.chi(l.pB, Z, 0)) * A.chi(k.pA, l.pA, 0));
+          const fieldMoments = sB.chi(k.pB, Z) * sB.mean(l.pB) + sB.mean(k.pB) * sB.chi(l.pB, Z);
+          statics[4] += c * ((mA === 0 ? 0 : sB.dChi(k.pB, l.pB) * mA) + (fieldMoments === 0 ? 0 : fieldMoments * sA.chi(k.pA, l.pA)));
         }
       }
   };
 
   const energySlots: Array<[number, number]> = [[6, 0], [8, 1], [10, 2]];
-  for (const [power, slot] of energySlots)
+  for (const [power, slot] of energySlots) {
+    if (power > maxPower) continue;
     for (let n = 2; n <= power - 4; n++) {
       add(couplingTerms(n), couplingTerms(power - 2 - n), 1 / (2 * Math.PI), slot, 0);
       addInduction(couplingTerms(n), couplingTerms(power - 2 - n), slot);
     }
+  }
   add(couplingTerms(2), couplingTerms(3), 1 / Math.PI, 3, 1);
   add(couplingTerms(2), couplingTerms(3), 1 / Math.PI, 4, 2);
   addInduction(couplingTerms(2), couplingTerms(3), 3);
@@ -121,10 +159,10 @@ export function tensorResponseCoefficients(A: TensorResponse, B: TensorResponse,
   };
   const out = new Float64Array(5);
   const f = (u: number) => {
-    chiA.evaluate(A.chi, u, vals.chiA);
-    chiB.evaluate(B.chi, u, vals.chiB);
-    dA.evaluate(A.dChiDFz, u, vals.dA);
-    dB.evaluate(B.dChiDFz, u, vals.dB);
+    chiA.evaluate(u, vals.chiA);
+    chiB.evaluate(u, vals.chiB);
+    dA.evaluate(u, vals.dA);
+    dB.evaluate(u, vals.dB);
     out.fill(0);
     for (let i = 0; i < prodC.length; i++) {
       const kind = prodKind[i];
@@ -135,15 +173,15 @@ export function tensorResponseCoefficients(A: TensorResponse, B: TensorResponse,
     return out;
   };
   const r = integrateSemiInfinite(f, 5, { scale: Math.sqrt(A.scale * B.scale), relTol: options.relTol ?? 1e-13 });
-  const v = r.value.map((x, i) => x + statics[i]);
+  const v = r.value.map((x, i) => (i < 3 && 6 + 2 * i > maxPower ? NaN : x + statics[i]));
   const [C6, C8, C10, D7a, D7b] = v;
   const [eC6, eC8, eC10, eA, eB] = r.error;
 
   let E5 = 0, D4a = 0, D4b = 0;
-  for (const k of couplingTerms(4)) E5 += k.c * A.mean(k.pA) * B.mean(k.pB);
+  for (const k of couplingTerms(4)) E5 += k.c * sA.mean(k.pA) * sB.mean(k.pB);
   for (const k of couplingTerms(3)) {
-    D4a -= k.c * A.chi(k.pA, Z, 0) * B.mean(k.pB);
-    D4b -= k.c * A.mean(k.pA) * B.chi(k.pB, Z, 0);
+    D4a -= k.c * sA.chi(k.pA, Z) * sB.mean(k.pB);
+    D4b -= k.c * sA.mean(k.pA) * sB.chi(k.pB, Z);
   }
   return {
     C6, C8, C10, D7a, D7b,
