@@ -51,5 +51,11 @@ export interface Route {
   run(A: Species, B: Species, options: RouteOptions): RouteResult;
 }
 
-/** Build a {@link D7Triple} from the two z components. */
-export const d7 = (a: number, b: number): D7Triple => ({ a, b, total: a + b });
+/**
+ * Build a {@link D7Triple} from the two z components. A total below the rounding resolution of the sum
+ * (4 ulp of |a| + |b|) is reported as 0 rather than as rounding noise.
+ */
+export function d7(a: number, b: number): D7Triple {
+  const total = a + b;
+  return { a, b, total: Math.abs(total) <= 4 * Number.EPSILON * (Math.abs(a) + Math.abs(b)) ? 0 : total };
+}

@@ -59,8 +59,9 @@ export function pairToText(p: PairResult, options: { digits?: number; units?: Un
   const f = (x: number | undefined) => (x === undefined ? '—' : sig(x, digits));
   const lines: string[] = [];
   lines.push(`Pair ${p.a.name} – ${p.b.name}: A at the origin, B at +R on z; atomic units`);
-  lines.push(`  A  ${describeSpecies(p.a)}${p.a.source ? `  [${p.a.source}]` : ''}`);
-  lines.push(`  B  ${describeSpecies(p.b)}${p.b.source ? `  [${p.b.source}]` : ''}`);
+  for (const [label, s] of [['A', p.a], ['B', p.b]] as const) {
+    lines.push(`  ${label}  ${s.name}: ${describeSpecies(s)}${s.source ? `  [${s.source}]` : ''}`);
+  }
   lines.push('');
   const header = ['route', 'C6 (Eh a0^6)', 'C8 (Eh a0^8)', 'C10 (Eh a0^10)', 'D7.a (e a0^8)', 'D7.b (e a0^8)', 'D7.total (e a0^8)'];
   const rows = p.routes.map((r) => [
