@@ -2,9 +2,10 @@
 import type { Route } from './route.js';
 import { perturbationRoute } from './perturbation/route.js';
 import { responseRoute } from './response/route.js';
+import { forceBalanceRoute } from './force-balance/route.js';
 
 /** Routes run by default, in order; the first is the reference the others are compared with. */
-export const defaultRoutes: Route[] = [perturbationRoute, responseRoute];
+export const defaultRoutes: Route[] = [perturbationRoute, responseRoute, forceBalanceRoute];
 
 /** Routes that run only when asked for (slow ones). */
 export const optionalRoutes: Route[] = [];
