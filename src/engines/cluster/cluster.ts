@@ -1,0 +1,376 @@
+/**
+ * N quantum Drude oscillators coupled by their dipole–dipole interaction: an exactly harmonic system of 3N
+ * coordinates, solved by its normal modes, plus the dipole–quadrupole term by force balance.
+ *
+ * Hamiltonian (atomic units; r_i the Drude displacement of centre i at R_i; K_i = diag(m_i w_i²)):
+ *   H = Σ_i [p_i²/(2 m_i) + ½ r_iᵀ K_i r_i] + Σ_{i<j} q_i q_j r_iᵀ (R² δ − 3 R R)/R^5 r_j  (+ V_dq, see below),
+ * i.e. ½ xᵀ A x with A = K + C in the 3N coordinates x. With D = M^-½ A M^-½ = V Ω² Vᵀ:
+ *  - energy: zero-point energy change ΔE = ½ Σ_n ω_n − ½ Σ_ia w_ia (all orders in the dipole coupling); the
+ *    pairwise counterpart Σ_{i<j} ΔE_ij uses the exact two-body normal modes (London 1937, Bade 1957), so
+ *    ΔE − Σ ΔE_ij is the many-body (non-additive) part;
+ *  - screened polarisability: the dipole of centre i per uniform field, α_i,ab(iu) = q_i [(A + M u²)^-1 Q]_ia,b
+ *    summed over the partners' rows (the relay-matrix contraction of A. Tkatchenko, R. A. DiStasio, R. Car,
+ *    M. Scheffler, Phys. Rev. Lett. 108, 236402 (2012)); α_i = (1/3) tr α_i(0);
+ *  - screened C6 of centre i: C6_i = (3/π) ∫_0^∞ α_i(iu)² du, the Casimir–Polder like-pair coefficient of the
+ *    screened response (H. B. G. Casimir, D. Polder, Phys. Rev. 73, 360 (1948)); for a lone QDO (3/4) α² w;
+ *  - dispersion-induced dipoles by force balance: the mean force on every Drude particle vanishes,
+ *    A <x> = F, F_i = −<∂V_dq/∂r_i> with the Gaussian covariance Σ = ½ M^-½ D^-½ M^-½ of the coupled ground state:
+ *      F_i,a = −Σ_{j≠i} q_i q_j T3_abc(R_j − R_i) (Σ^{ij}_bc − ½ Σ^{jj}_bc)
+ *    (exact to first order in V_dq and to all orders in the dipole coupling, which also couples the induced
+ *    displacements through A); mu_i = −q_i <r_i>.
+ */
+import type { Species } from '../../model/species.js';
+import type { DrudeSpecies } from '../../model/drude.js';
+import type { Vec3 } from '../../model/types.js';
+import { InputError } from '../../model/errors.js';
+import { symmetricEigen } from '../../math/symmetric-eigen.js';
+import { integrateSemiInfinite } from '../../math/semi-infinite-quadrature.js';
+import { coupledPairZeroPointShift } from '../force-balance/pair-force-balance.js';
+import { dipoleCouplingBlock, thirdDerivativeTensor } from './dipole-tensors.js';
+
+/** One centre of a cluster. */
+export interface ClusterCentre {
+  label: string;
+  species: Species;
+  /** Position, bohr. */
+  position: Vec3;
+  /** Line of the geometry file, for error messages. */
+  line?: number;
+}
+
+export type ClusterStage = 'pairs' | 'tridiagonalise' | 'eigenvectors' | 'back-transform' | 'covariance' | 'polarisability';
+
+export interface ClusterOptions {
+  /** Relative tolerance of the C6 quadrature (default 1e-10). */
+  relTol?: number;
+  /** Progress of the long stages (fraction 0…1 of each stage). */
+  progress?: (stage: ClusterStage, fraction: number) => void;
+}
+
+export interface ClusterCentreResult {
+  label: string;
+  species: string;
+  /** bohr */
+  position: Vec3;
+  /** Dispersion-induced dipole, e·a0. */
+  dipole: Vec3;
+  /** Screened static polarisability (1/3 of the trace), a0³. */
+  alpha: number;
+  /** The free centre's static polarisability, a0³. */
+  alphaFree: number;
+  /** Screened like-pair C6 = (3/π)∫α_i(iu)² du, Eh·a0^6. */
+  C6: number;
+  /** The free centre's like-pair C6, Eh·a0^6. */
+  C6Free: number;
+}
+
+export interface ClusterResult {
+  /** Hartree: zero-point energy change with all couplings, its pairwise-additive sum, and their difference. */
+  energy: { manyBody: number; pairwise: number; nonAdditive: number };
+  /** Total dispersion-induced dipole, e·a0. */
+  dipole: Vec3;
+  /** Screened polarisability of the whole cluster (Σ_i alpha_i), a0³. */
+  alpha: number;
+  centres: ClusterCentreResult[];
+  /** Normal-mode frequencies, Eh/hbar. */
+  modes: { count: number; lowest: number; highest: number };
+  /** The C6 quadrature's record. */
+  quadrature: { evaluations: number; converged: boolean; largestRelativeError: number };
+  /** False when the C6 quadrature missed its tolerance. */
+  converged: boolean;
+}
+
+/** The centre as a QDO, or an input error naming it (the cluster engine needs harmonic centres). */
+function harmonic(c: ClusterCentre): DrudeSpecies {
+  const s = c.species;
+  switch (s.kind) {
+    case 'drude':
+      return s;
+    default:
+      throw new InputError(where(c), `species ${(s as Species).name} is not a quantum Drude oscillator; the cluster engine needs harmonic centres`);
+  }
+}
+
+const where = (c: ClusterCentre) => (c.line !== undefined ? `line ${c.line} (${c.label})` : c.label);
+const isIsotropic = (s: DrudeSpecies) => s.w[0] === s.w[1] && s.w[1] === s.w[2];
+
+/** Solve the dipole-coupled cluster and its force-balance dipoles. */
+export function computeCluster(centres: readonly ClusterCentre[], options: ClusterOptions = {}): ClusterResult {
+  const N = centres.length;
+  if (N === 0) throw new InputError('geometry', 'has no centres');
+  const sp = centres.map(harmonic);
+  for (const c of centres) if (!c.position.every(Number.isFinite)) throw new InputError(where(c), 'position must be finite');
+  const n = 3 * N;
+  const q = sp.map((s) => s.q), m = sp.map((s) => s.m);
+  const w = new Float64Array(n);
+  sp.forEach((s, i) => w.set(s.w, 3 * i));
+  const progress = options.progress;
+
+  // pairwise energies (and the two-body stability check, which names the lines)
+  let pairwise = 0;
+  for (let i = 0; i < N; i++) {
+    for (let j = i + 1; j < N; j++) pairwise += pairEnergy(centres[i], sp[i], centres[j], sp[j]);
+    if (progress && i % 50 === 0) progress('pairs', i / N);
+  }
+
+  // D = M^-½ (K + C) M^-½
+  const D = new Float64Array(n * n);
+  for (let i = 0; i < N; i++) {
+    for (let a = 0; a < 3; a++) D[(3 * i + a) * n + 3 * i + a] = w[3 * i + a] ** 2;
+    for (let j = 0; j < i; j++) {
+      const blk = dipoleCouplingBlock(separation(centres[i], centres[j]));
+      const f = (q[i] * q[j]) / Math.sqrt(m[i] * m[j]);
+      for (let a = 0; a < 3; a++)
+        for (let b = 0; b < 3; b++) {
+          const x = f * blk[3 * a + b];
+          D[(3 * i + a) * n + 3 * j + b] = x;
+          D[(3 * j + b) * n + 3 * i + a] = x;
+        }
+    }
+  }
+  const eig = symmetricEigen(D, n, { progress: progress && ((stage, f) => progress(stage, f)) });
+  const lambda = eig.values, V = eig.vectors!;
+  if (!(lambda[0] > 0)) {
+    throw new InputError('geometry', `the dipole-coupled cluster is unstable (lowest normal mode ω² = ${lambda[0].toExponential(3)} Eh²): centres are too close together (polarisation catastrophe)`);
+  }
+  const omega = lambda.map(Math.sqrt);
+  const manyBody = zeroPointShift(lambda, V, w, n);
+
+  // Y = M^-½ V (2Ω)^-½, so that the covariance is Σ = Y Yᵀ
+  const Y = new Float64Array(n * n);
+  for (let r = 0; r < n; r++) {
+    const s = 1 / Math.sqrt(2 * m[Math.floor(r / 3)]);
+    for (let k = 0; k < n; k++) Y[r * n + k] = (V[r * n + k] * s) / Math.sqrt(omega[k]);
+  }
+  const F = forceBalanceSource(centres, q, Y, N, n, progress);
+
+  // <x> = M^-½ V Ω^-2 Vᵀ M^-½ F, mu_i = −q_i <r_i>
+  const x = applyInverse(V, lambda, m, F, n);
+  const dipoles: Vec3[] = [];
+  const total: Vec3 = [0, 0, 0];
+  for (let i = 0; i < N; i++) {
+    const mu: Vec3 = [-q[i] * x[3 * i], -q[i] * x[3 * i + 1], -q[i] * x[3 * i + 2]];
+    dipoles.push(mu);
+    for (let a = 0; a < 3; a++) total[a] += mu[a];
+  }
+
+  // screened polarisabilities: α_i(iu) = Σ_n f_in/(ω_n² + u²)
+  const P = new Float64Array(3 * n); // P[a·n + k] = Σ_j (q_j/√m_j) V_ja,k
+  for (let j = 0; j < N; j++) {
+    const g = q[j] / Math.sqrt(m[j]);
+    for (let a = 0; a < 3; a++) {
+      const row = (3 * j + a) * n;
+      for (let k = 0; k < n; k++) P[a * n + k] += g * V[row + k];
+    }
+  }
+  const fw = new Float64Array(N * n);
+  for (let i = 0; i < N; i++) {
+    const g = q[i] / (3 * Math.sqrt(m[i]));
+    for (let a = 0; a < 3; a++) {
+      const row = (3 * i + a) * n;
+      for (let k = 0; k < n; k++) fw[i * n + k] += g * V[row + k] * P[a * n + k];
+    }
+  }
+  const alphaAt = (u: number, out: Float64Array) => {
+    const u2 = u * u;
+    const inv = new Float64Array(n);
+    for (let k = 0; k < n; k++) inv[k] = 1 / (lambda[k] + u2);
+    for (let i = 0; i < N; i++) {
+      let s = 0;
+      const row = i * n;
+      for (let k = 0; k < n; k++) s += fw[row + k] * inv[k];
+      out[i] = s;
+    }
+    return out;
+  };
+  const alpha0 = alphaAt(0, new Float64Array(N));
+  const buf = new Float64Array(N);
+  let calls = 0;
+  const quad = integrateSemiInfinite(
+    (u) => {
+      alphaAt(u, buf);
+      for (let i = 0; i < N; i++) buf[i] = (3 / Math.PI) * buf[i] * buf[i];
+      if (progress && ++calls % 20 === 0) progress('polarisability', Math.min(0.99, calls / 400));
+      return buf;
+    },
+    N,
+    { scale: omega[n >> 1], relTol: options.relTol ?? 1e-10 },
+  );
+  progress?.('polarisability', 1);
+  let largestRelativeError = 0;
+  for (let i = 0; i < N; i++) largestRelativeError = Math.max(largestRelativeError, quad.error[i] / Math.abs(quad.value[i]));
+
+  const result: ClusterCentreResult[] = centres.map((c, i) => ({
+    label: c.label,
+    species: sp[i].name,
+    position: [...c.position] as Vec3,
+    dipole: dipoles[i],
+    alpha: alpha0[i],
+    alphaFree: freeAlpha(sp[i]),
+    C6: quad.value[i],
+    C6Free: freeC6(sp[i]),
+  }));
+  return {
+    energy: { manyBody, pairwise, nonAdditive: manyBody - pairwise },
+    dipole: total,
+    alpha: alpha0.reduce((s, a) => s + a, 0),
+    centres: result,
+    modes: { count: n, lowest: omega[0], highest: omega[n - 1] },
+    quadrature: { evaluations: quad.evaluations, converged: quad.converged, largestRelativeError },
+    converged: quad.converged,
+  };
+}
+
+/** R_j − R_i, bohr. */
+const separation = (ci: ClusterCentre, cj: ClusterCentre): Vec3 => [
+  cj.position[0] - ci.position[0],
+  cj.position[1] - ci.position[1],
+  cj.position[2] - ci.position[2],
+];
+
+/** Exact zero-point-energy change of one dipole-coupled pair (hartree); an input error when the pair is unstable. */
+export function pairEnergy(ci: ClusterCentre, si: DrudeSpecies, cj: ClusterCentre, sj: DrudeSpecies): number {
+  const R = separation(ci, cj);
+  const r = Math.hypot(R[0], R[1], R[2]);
+  const overlap = () => {
+    const ai = freeAlpha(si), aj = freeAlpha(sj);
+    return new InputError(
+      where(cj),
+      `centre ${cj.label} overlaps centre ${ci.label}${ci.line !== undefined ? ` on line ${ci.line}` : ''}: ${r.toPrecision(4)} bohr apart, ` +
+        `where the dipole-coupled pair is unstable (polarisation catastrophe; for isotropic centres below (4 αi αj)^(1/6) = ${((4 * ai * aj) ** (1 / 6)).toPrecision(4)} bohr)`,
+    );
+  };
+  if (isIsotropic(si) && isIsotropic(sj)) {
+    const g = (si.q * sj.q) / r ** 3;
+    try {
+      // along the pair axis the coupling is −2g, across it g (twice)
+      return coupledPairZeroPointShift(si.m, si.w[0], sj.m, sj.w[0], -2 * g) + 2 * coupledPairZeroPointShift(si.m, si.w[0], sj.m, sj.w[0], g);
+    } catch (e) {
+      if (e instanceof RangeError) throw overlap();
+      throw e;
+    }
+  }
+  // anisotropic: the 6×6 normal-mode problem
+  const blk = dipoleCouplingBlock(R);
+  const D6 = new Float64Array(36);
+  const f = (si.q * sj.q) / Math.sqrt(si.m * sj.m);
+  for (let a = 0; a < 3; a++) {
+    D6[a * 6 + a] = si.w[a] ** 2;
+    D6[(a + 3) * 6 + a + 3] = sj.w[a] ** 2;
+    for (let b = 0; b < 3; b++) {
+      D6[a * 6 + 3 + b] = f * blk[3 * a + b];
+      D6[(3 + b) * 6 + a] = f * blk[3 * a + b];
+    }
+  }
+  const ev = symmetricEigen(D6, 6);
+  if (!(ev.values[0] > 0)) throw overlap();
+  return zeroPointShift(ev.values, ev.vectors!, [...si.w, ...sj.w], 6);
+}
+
+/**
+ * ½ Σ_n ω_n − ½ Σ_i w_i without the cancellation of the plain difference (derived here): since D_ii = w_i²,
+ * Σ_n V_in² (λ_n − w_i²) = 0 for every i, so with f = √ and d_i = w_i²
+ *   Σ_n f(λ_n) − Σ_i f(d_i) = Σ_n Σ_i V_in² [f(λ_n) − f(d_i) − f'(d_i)(λ_n − d_i)]
+ *                            = −Σ_n Σ_i V_in² (λ_n − d_i)² / (2 √d_i (√λ_n + √d_i)²),
+ * every term of one sign and of second order in the coupling.
+ */
+function zeroPointShift(lambda: Float64Array, V: Float64Array, w: ArrayLike<number>, n: number): number {
+  const sq = lambda.map(Math.sqrt);
+  let s = 0;
+  for (let i = 0; i < n; i++) {
+    const d = w[i] * w[i];
+    const row = i * n;
+    for (let k = 0; k < n; k++) {
+      const v = V[row + k];
+      const diff = lambda[k] - d;
+      const sum = sq[k] + w[i];
+      s += (v * v * diff * diff) / (w[i] * sum * sum);
+    }
+  }
+  return -0.25 * s;
+}
+
+/** F_i = −<∂V_dq/∂r_i> over the coupled Gaussian (see the module comment); blocks Σ^{ij} = Y_i Y_jᵀ on the fly. */
+function forceBalanceSource(
+  centres: readonly ClusterCentre[],
+  q: readonly number[],
+  Y: Float64Array,
+  N: number,
+  n: number,
+  progress?: ClusterOptions['progress'],
+): Float64Array {
+  const block = (i: number, j: number, out: Float64Array) => {
+    const r0 = 3 * i * n, s0 = 3 * j * n;
+    let a00 = 0, a01 = 0, a02 = 0, a10 = 0, a11 = 0, a12 = 0, a20 = 0, a21 = 0, a22 = 0;
+    for (let k = 0; k < n; k++) {
+      const x0 = Y[r0 + k], x1 = Y[r0 + n + k], x2 = Y[r0 + 2 * n + k];
+      const y0 = Y[s0 + k], y1 = Y[s0 + n + k], y2 = Y[s0 + 2 * n + k];
+      a00 += x0 * y0; a01 += x0 * y1; a02 += x0 * y2;
+      a10 += x1 * y0; a11 += x1 * y1; a12 += x1 * y2;
+      a20 += x2 * y0; a21 += x2 * y1; a22 += x2 * y2;
+    }
+    out[0] = a00; out[1] = a01; out[2] = a02; out[3] = a10; out[4] = a11; out[5] = a12; out[6] = a20; out[7] = a21; out[8] = a22;
+    return out;
+  };
+  const self: Float64Array[] = [];
+  for (let j = 0; j < N; j++) self.push(block(j, j, new Float64Array(9)));
+  const F = new Float64Array(n);
+  const S = new Float64Array(9);
+  // contraction Σ_bc T3_abc X_bc for a 3×3 X (row-major), into F_i,a with a factor
+  const contract = (T3: Float64Array, X: Float64Array, transpose: boolean, factor: number, into: number) => {
+    for (let a = 0; a < 3; a++) {
+      let s = 0;
+      for (let b = 0; b < 3; b++) for (let c = 0; c < 3; c++) s += T3[9 * a + 3 * b + c] * (transpose ? X[3 * c + b] : X[3 * b + c]);
+      F[into + a] += factor * s;
+    }
+  };
+  const every = Math.max(1, Math.floor(N / 50));
+  for (let i = 0; i < N; i++) {
+    for (let j = i + 1; j < N; j++) {
+      const R = separation(centres[i], centres[j]); // R_j − R_i
+      const T3ij = thirdDerivativeTensor(R);
+      const T3ji = T3ij.map((t) => -t); // T3 is odd in R
+      block(i, j, S); // Σ^{ij}; Σ^{ji} is its transpose
+      const qq = q[i] * q[j];
+      contract(T3ij, S, false, -qq, 3 * i);
+      contract(T3ij, self[j], false, 0.5 * qq, 3 * i);
+      contract(T3ji, S, true, -qq, 3 * j);
+      contract(T3ji, self[i], false, 0.5 * qq, 3 * j);
+    }
+    if (progress && i % every === 0) progress('covariance', i / N);
+  }
+  progress?.('covariance', 1);
+  return F;
+}
+
+/** x = M^-½ V Λ^-1 Vᵀ M^-½ F, i.e. A^-1 F. */
+function applyInverse(V: Float64Array, lambda: Float64Array, m: readonly number[], F: Float64Array, n: number): Float64Array {
+  const t = new Float64Array(n);
+  for (let r = 0; r < n; r++) {
+    const fr = F[r] / Math.sqrt(m[Math.floor(r / 3)]);
+    if (fr === 0) continue;
+    const row = r * n;
+    for (let k = 0; k < n; k++) t[k] += V[row + k] * fr;
+  }
+  for (let k = 0; k < n; k++) t[k] /= lambda[k];
+  const x = new Float64Array(n);
+  for (let r = 0; r < n; r++) {
+    let s = 0;
+    const row = r * n;
+    for (let k = 0; k < n; k++) s += V[row + k] * t[k];
+    x[r] = s / Math.sqrt(m[Math.floor(r / 3)]);
+  }
+  return x;
+}
+
+/** Static polarisability of a free QDO, 1/3 of the trace of q²/(m w_a²), a0³. */
+export function freeAlpha(s: DrudeSpecies): number {
+  return (s.q * s.q * (1 / s.w[0] ** 2 + 1 / s.w[1] ** 2 + 1 / s.w[2] ** 2)) / (3 * s.m);
+}
+
+/** Like-pair C6 of a free QDO from (3/π)∫α(iu)² du with α(iu) = (q²/3m) Σ_a 1/(w_a² + u²): (q⁴/6m²) Σ_ab 1/(w_a w_b (w_a + w_b)). */
+export function freeC6(s: DrudeSpecies): number {
+  let sum = 0;
+  for (const a of s.w) for (const b of s.w) sum += 1 / (a * b * (a + b));
+  return (s.q ** 4 / (6 * s.m * s.m)) * sum;
+}

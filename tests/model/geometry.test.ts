@@ -1,0 +1,48 @@
+import { describe, expect, test } from 'vitest';
+import { parseXyz } from '../../src/model/geometry.js';
+import { InputError } from '../../src/model/errors.js';
+import { BOHR_IN_ANGSTROM } from '../../src/model/units.js';
+import { expectClose } from '../helpers/tolerance.js';
+
+/** The InputError thrown by f (its field carries file:line). */
+function errorOf(f: () => unknown): InputError {
+  try {
+    f();
+  } catch (e) {
+    if (e instanceof InputError) return e;
+    throw e;
+  }
+  throw new Error('expected an InputError');
+}
+
+describe('parseXyz', () => {
+  test('reads count, comment and labelled centres; ångström by default, bohr on request', () => {
+    const text = '2\n an invented pair \nQuelon 0 0 0\nVirid 0.0 0.0 4.5\n\n';
+    const g = parseXyz(text, { fileName: 'pair.xyz' });
+    expect(g.comment).toBe('an invented pair');
+    expect(g.centres.map((c) => [c.label, c.line])).toEqual([['Quelon', 3], ['Virid', 4]]);
+    expectClose(g.centres[1].position[2], 4.5 / BOHR_IN_ANGSTROM, 1e-15);
+    expect(parseXyz(text, { unit: 'bohr' }).centres[1].position).toEqual([0, 0, 4.5]);
+  });
+  test('accepts tabs, CRLF, exponents and Fortran D exponents', () => {
+    const g = parseXyz('1\r\n\r\nX\t1e-1  -2.5D0 .5\r\n', { unit: 'bohr' });
+    expect(g.centres[0].position).toEqual([0.1, -2.5, 0.5]);
+  });
+  const cases: Array<[string, string, RegExp]> = [
+    ['', 'g.xyz:1', /number of centres.*empty line/],
+    ['two\nc\nX 0 0 0\n', 'g.xyz:1', /number of centres.*"two"/],
+    ['2\nc\nX 0 0 0\n', 'g.xyz:4', /centre 2 of 2.*end of the file/],
+    ['2\nc\nX 0 0 0\n\nY 1 1 1\n', 'g.xyz:4', /centre 2 of 2.*empty line/],
+    ['1\nc\nX 0 0\n', 'g.xyz:3', /4 fields\), got 3/],
+    ['1\nc\nX 0 0 0 7\n', 'g.xyz:3', /4 fields\), got 5/],
+    ['1\nc\nX 0 zero 0\n', 'g.xyz:3', /y coordinate "zero" is not a number/],
+    ['1\nc\n1.0 0 0 0\n', 'g.xyz:3', /expected a label first/],
+    ['1\nc\nX 0 0 0\nY 1 1 1\n', 'g.xyz:4', /unexpected content after the 1 centres/],
+    ['3\nc\nX 0 0 0\nY 0 0 3\nZ 0 0 0.0000001\n', 'g.xyz:5', /coincides with centre X on line 3/],
+  ];
+  test.each(cases)('bad geometry %j fails at %s', (text, where, message) => {
+    const e = errorOf(() => parseXyz(text, { fileName: 'g.xyz' }));
+    expect(e.field).toBe(where);
+    expect(e.problem).toMatch(message);
+  });
+});
