@@ -2,9 +2,11 @@
 import type { Command } from 'commander';
 import type { CommandContext } from '../context.js';
 import { registerPair } from './pair.js';
+import { registerCluster } from './cluster.js';
 import { registerSpecies } from './species.js';
 
 export const commandRegistrars: Array<(program: Command, ctx: CommandContext) => void> = [
   registerPair,
+  registerCluster,
   registerSpecies,
 ];
