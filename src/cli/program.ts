@@ -6,8 +6,9 @@ import { commandRegistrars } from './commands/index.js';
 import type { CommandContext } from './context.js';
 import type { CliIO } from './io.js';
 
-/** Exit codes: 0 ok, 1 a check found a difference, 2 bad input, 3 unconverged or untrusted result. */
-export const EXIT = { ok: 0, differs: 1, badInput: 2, untrusted: 3 } as const;
+import { EXIT } from './exit-codes.js';
+
+export { EXIT };
 
 /** Run the CLI on `argv` (without the node and script names); returns the exit code. */
 export async function runCli(argv: readonly string[], io: CliIO): Promise<number> {

@@ -34,8 +34,20 @@ function ladderPower(k: number, n: number): Map<number, number> {
   return v;
 }
 
-/** Build the harmonic local space of a QDO, keeping states with at most `maxQuanta` total quanta. */
+// Species are immutable plain data, so a space (and its matrix-element cache) is reused for the same object:
+// a table of N species then builds N spaces, not N² .
+const spaces = new WeakMap<DrudeSpecies, Map<number, LocalSpace>>();
+
+/** The harmonic local space of a QDO, keeping states with at most `maxQuanta` total quanta (cached per species). */
 export function harmonicSpace(species: DrudeSpecies, maxQuanta: number): LocalSpace {
+  let bySize = spaces.get(species);
+  if (!bySize) spaces.set(species, (bySize = new Map()));
+  let space = bySize.get(maxQuanta);
+  if (!space) bySize.set(maxQuanta, (space = buildHarmonicSpace(species, maxQuanta)));
+  return space;
+}
+
+function buildHarmonicSpace(species: DrudeSpecies, maxQuanta: number): LocalSpace {
   if (!(maxQuanta >= 1 && maxQuanta < BASE)) throw new RangeError(`maxQuanta must be 1…${BASE - 1}`);
   const { q, m, w } = species;
   const s = w.map((wi) => 1 / Math.sqrt(2 * m * wi));

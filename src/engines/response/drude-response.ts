@@ -48,8 +48,16 @@ function hermiteCoefficients(k: number): Array<[number, number]> {
   return out;
 }
 
-/** Closed-form Cartesian response of any QDO. */
+const tensorCache = new WeakMap<DrudeSpecies, TensorResponse>();
+
+/** Closed-form Cartesian response of any QDO (cached per species object: species are immutable data). */
 export function drudeTensorResponse(s: DrudeSpecies): TensorResponse {
+  let hit = tensorCache.get(s);
+  if (!hit) tensorCache.set(s, (hit = buildTensorResponse(s)));
+  return hit;
+}
+
+function buildTensorResponse(s: DrudeSpecies): TensorResponse {
   const { q, m, w } = s;
   const len = w.map((wi) => 1 / Math.sqrt(2 * m * wi));
   const kz = m * w[2] * w[2];
