@@ -82,8 +82,34 @@ function tridiagonalise(A: Float64Array, n: number, progress?: SymmetricEigenOpt
       }
     }
     tau[k] = t;
-    // fused pass over the trailing lower triangle: apply the pending update, accumulate p = A22 v
-    for (let i = k + 1; i < n; i++) {
+    // fused pass over the trailing lower triangle: apply the pending update, accumulate p = A22 v;
+    // two rows per sweep so each load of the short vectors serves both
+    let i = k + 1;
+    for (; i + 1 < n; i += 2) {
+      const r0 = i * n, r1 = r0 + n;
+      const v0 = vp[i], w0 = wp[i], u0 = v[i];
+      const v1 = vp[i + 1], w1 = wp[i + 1], u1 = v[i + 1];
+      let s0 = 0, s1 = 0;
+      for (let j = k + 1; j < i; j++) {
+        const vj = vp[j], wj = wp[j], uj = v[j];
+        const x0 = A[r0 + j] - (v0 * wj + w0 * vj);
+        const x1 = A[r1 + j] - (v1 * wj + w1 * vj);
+        A[r0 + j] = x0;
+        A[r1 + j] = x1;
+        s0 += x0 * uj;
+        s1 += x1 * uj;
+        p[j] += x0 * u0 + x1 * u1;
+      }
+      const d0 = A[r0 + i] - 2 * v0 * w0;
+      const off = A[r1 + i] - (v1 * w0 + w1 * v0);
+      const d1 = A[r1 + i + 1] - 2 * v1 * w1;
+      A[r0 + i] = d0;
+      A[r1 + i] = off;
+      A[r1 + i + 1] = d1;
+      p[i] += s0 + d0 * u0 + off * u1;
+      p[i + 1] += s1 + off * u0 + d1 * u1;
+    }
+    if (i < n) {
       const row = i * n;
       const vi = vp[i], wi = wp[i], ui = v[i];
       let s = 0;

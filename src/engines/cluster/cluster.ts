@@ -324,20 +324,24 @@ function forceBalanceSource(
       F[into + a] += factor * s;
     }
   };
-  const every = Math.max(1, Math.floor(N / 50));
-  for (let i = 0; i < N; i++) {
-    for (let j = i + 1; j < N; j++) {
-      const R = separation(centres[i], centres[j]); // R_j − R_i
-      const T3ij = thirdDerivativeTensor(R);
-      const T3ji = T3ij.map((t) => -t); // T3 is odd in R
-      block(i, j, S); // Σ^{ij}; Σ^{ji} is its transpose
-      const qq = q[i] * q[j];
-      contract(T3ij, S, false, -qq, 3 * i);
-      contract(T3ij, self[j], false, 0.5 * qq, 3 * i);
-      contract(T3ji, S, true, -qq, 3 * j);
-      contract(T3ji, self[i], false, 0.5 * qq, 3 * j);
+  // pairs in tiles of TILE centres i against every later j, so the rows of j are reused from cache TILE times
+  const TILE = 16;
+  for (let i0 = 0; i0 < N; i0 += TILE) {
+    const i1 = Math.min(N, i0 + TILE);
+    for (let j = i0 + 1; j < N; j++) {
+      for (let i = i0; i < Math.min(i1, j); i++) {
+        const R = separation(centres[i], centres[j]); // R_j − R_i
+        const T3ij = thirdDerivativeTensor(R);
+        const T3ji = T3ij.map((t) => -t); // T3 is odd in R
+        block(i, j, S); // Σ^{ij}; Σ^{ji} is its transpose
+        const qq = q[i] * q[j];
+        contract(T3ij, S, false, -qq, 3 * i);
+        contract(T3ij, self[j], false, 0.5 * qq, 3 * i);
+        contract(T3ji, S, true, -qq, 3 * j);
+        contract(T3ji, self[i], false, 0.5 * qq, 3 * j);
+      }
     }
-    if (progress && i % every === 0) progress('covariance', i / N);
+    progress?.('covariance', i1 / N);
   }
   progress?.('covariance', 1);
   return F;
