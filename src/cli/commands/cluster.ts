@@ -34,9 +34,9 @@ export function registerCluster(program: Command, ctx: CommandContext): void {
     .command('cluster')
     .summary('N dipole-coupled oscillators: many-body dispersion energy, screened alpha and C6, induced dipoles')
     .description(
-      'Solve the dipole-coupled quantum Drude oscillators of a geometry (XYZ file: count line, comment line, then\n' +
-        '"label x y z" per centre, ångström unless --bohr) by their normal modes: the dispersion energy to all orders and\n' +
-        'its pairwise-additive part, each centre\'s screened polarisability and C6, and each centre\'s dispersion-induced\n' +
+      'Solve the dipole-coupled quantum Drude oscillators of a geometry (XYZ file: count line, comment line, then ' +
+        '"label x y z" per centre, ångström unless --bohr) by their normal modes: the dispersion energy to all orders and ' +
+        'its pairwise-additive part, each centre\'s screened polarisability and C6, and each centre\'s dispersion-induced ' +
         'dipole (force balance with the dipole–quadrupole interaction) and their sum.\n' +
         `Each label is resolved by --assign LABEL=SPEC, else as ${SPECIES_TOKEN_HELP}.`,
     )
