@@ -32,12 +32,32 @@ export { drudeIsotropicResponse, drudeTensorResponse } from './engines/response/
 export { isotropicResponseCoefficients } from './engines/response/isotropic-kernel.js';
 export { tensorResponseCoefficients, type ResponseCoefficients } from './engines/response/tensor-kernel.js';
 export { localSpaceOf, isotropicResponseOf, tensorResponseOf, isSpherical } from './engines/capabilities.js';
+// real atoms: hydrogen from first principles, the sourced atom library, user response data
+export { hasLocalSpace, speciesNotes, speciesWarnings, responsePowerLimit } from './engines/capabilities.js';
+export { hydrogenic, DEFAULT_HYDROGENIC_BASIS, type HydrogenicSpecies } from './model/hydrogenic.js';
+export {
+  parseResponseData, oscillatorSpectrum, responseDataFromText, responseDataSpeciesFile, isResponseDataFile,
+  type ResponseTableSpecies, type OscillatorSpectrumSpecies, type ResponseDataSpecies,
+} from './model/response-data.js';
+export { ATOM_LIBRARY, HYDROGEN_EXACT, type AtomRecord, type SourcedValue } from './data/atom-library.js';
+export { atomLibrarySpecies } from './model/builtin-species.js';
+export { hydrogenicSpectrum, type RadialPseudoSpectrum } from './engines/atoms/sturmian-spectrum.js';
+export { pseudoStateSpace } from './engines/atoms/pseudo-state-space.js';
+export { pseudoStateResponse, type StaticAtomProperties } from './engines/atoms/pseudo-state-response.js';
+export { hydrogenicSpace, hydrogenicResponse, hydrogenicBasisCheck, hydrogenicLikePair } from './engines/atoms/hydrogenic-atom.js';
+export { responseTableResponse, oscillatorSpectrumResponse, type DataResponse } from './engines/atoms/tabulated-response.js';
+export { finiteFieldGroundState } from './engines/atoms/finite-field.js';
 export type { Route, RouteResult, RouteOptions, D7Triple } from './engines/route.js';
 export { defaultRoutes, optionalRoutes, routeByName, routeNames } from './engines/routes.js';
 export { computePair, routeSpread, type PairResult, type PairOptions, type Spread } from './engines/pair.js';
+export {
+  allPairs, selectPairs, computeTable, requireDistinctSpecies, rowStatus, untrustedCount,
+  type CoefficientTable, type TableRow, type TableOptions, type TableSettings, type RowStatus, type SpeciesPair,
+} from './engines/table.js';
 
 // report
 export { pairToJson, pairToText, coefficientsToSI } from './report/pair-report.js';
+export { renderTable, TABLE_FORMATS, tableToJson, type TableFormat } from './report/table/index.js';
 
 // cli (in-process runner, for embedding and tests)
 export { runCli, EXIT } from './cli/program.js';

@@ -1,6 +1,7 @@
 /** Option parsers and helpers shared by the CLI commands. */
 import { InvalidArgumentError } from 'commander';
 import { parseSpeciesFile } from '../model/species-file.js';
+import { isResponseDataFile, responseDataSpeciesFile } from '../model/response-data.js';
 import { resolveSpecies } from '../model/builtin-species.js';
 import type { Species } from '../model/species.js';
 import type { CliIO } from './io.js';
@@ -31,7 +32,10 @@ export function oneOf<T extends string>(allowed: readonly T[]) {
 
 /** Read `--species FILE` (if given) into a name → species map. */
 export function loadSpeciesFile(io: CliIO, path: string | undefined): Map<string, Species> | undefined {
-  return path === undefined ? undefined : parseSpeciesFile(io.readFile(path), path);
+  if (path === undefined) return undefined;
+  const text = io.readFile(path);
+  // a .csv file is one species' response data (src/model/response-data.ts)
+  return isResponseDataFile(path) ? responseDataSpeciesFile(text, path) : parseSpeciesFile(text, path);
 }
 
 /** Resolve positional species tokens against the file and the built-ins. */
@@ -40,7 +44,7 @@ export function resolveAll(tokens: readonly string[], fromFile?: ReadonlyMap<str
 }
 
 /** The `--species FILE` help text, shared so every command says the same. */
-export const SPECIES_FILE_HELP = 'YAML or JSON file of species (top-level "species" mapping name → {kind, fields…})';
+export const SPECIES_FILE_HELP = 'YAML or JSON file of species (top-level "species" mapping name → {kind, fields…}), or a .csv file of response data (one species)';
 
 /** The species-token help text. */
 export const SPECIES_TOKEN_HELP =

@@ -9,12 +9,34 @@ import { harmonicSpace } from './perturbation/harmonic-space.js';
 import type { LocalSpace } from './perturbation/local-space.js';
 import { drudeIsotropicResponse, drudeTensorResponse } from './response/drude-response.js';
 import type { IsotropicResponse, TensorResponse } from './response/response-model.js';
+import { hydrogenicNotes, hydrogenicResponse, hydrogenicSpace } from './atoms/hydrogenic-atom.js';
+import { oscillatorSpectrumResponse, responseTableResponse } from './atoms/tabulated-response.js';
 
-/** The local state space of a species for the perturbation route (maxQuanta: harmonic truncation, QDOs only). */
+/** True when the species has a local state space (states, excitation energies, moments) for the perturbation route. */
+export function hasLocalSpace(s: Species): boolean {
+  switch (s.kind) {
+    case 'drude':
+    case 'hydrogenic':
+      return true;
+    case 'response-table':
+    case 'oscillator-spectrum':
+      return false;
+  }
+}
+
+/**
+ * The local state space of a species for the perturbation route (maxQuanta: harmonic truncation, QDOs only).
+ * Throws for kinds without one ({@link hasLocalSpace} is false): routes check first.
+ */
 export function localSpaceOf(s: Species, maxQuanta: number): LocalSpace {
   switch (s.kind) {
     case 'drude':
       return harmonicSpace(s, maxQuanta);
+    case 'hydrogenic':
+      return hydrogenicSpace(s);
+    case 'response-table':
+    case 'oscillator-spectrum':
+      throw new Error(`${s.name} has response data only, no state space`);
   }
 }
 
@@ -23,6 +45,12 @@ export function isotropicResponseOf(s: Species): IsotropicResponse | undefined {
   switch (s.kind) {
     case 'drude':
       return isIsotropicDrude(s) ? drudeIsotropicResponse(s) : undefined;
+    case 'hydrogenic':
+      return hydrogenicResponse(s);
+    case 'response-table':
+      return responseTableResponse(s);
+    case 'oscillator-spectrum':
+      return oscillatorSpectrumResponse(s);
   }
 }
 
@@ -31,6 +59,10 @@ export function tensorResponseOf(s: Species): TensorResponse | undefined {
   switch (s.kind) {
     case 'drude':
       return drudeTensorResponse(s);
+    case 'hydrogenic':
+    case 'response-table':
+    case 'oscillator-spectrum':
+      return undefined;
   }
 }
 
@@ -39,5 +71,45 @@ export function isSpherical(s: Species): boolean {
   switch (s.kind) {
     case 'drude':
       return isIsotropicDrude(s);
+    case 'hydrogenic':
+    case 'response-table':
+    case 'oscillator-spectrum':
+      return true;
   }
+}
+
+/** Highest dispersion power (6, 8, 10) a species' response functions support (data may lack alpha2, alpha3). */
+export function responsePowerLimit(s: Species): 6 | 8 | 10 {
+  switch (s.kind) {
+    case 'drude':
+    case 'hydrogenic':
+      return 10;
+    case 'response-table':
+      return responseTableResponse(s).maxEnergyPower;
+    case 'oscillator-spectrum':
+      return oscillatorSpectrumResponse(s).maxEnergyPower;
+  }
+}
+
+/** What a species' numbers rest on (basis and its convergence, interpolation, tails, approximations), for route notes. */
+export function speciesNotes(s: Species): string[] {
+  switch (s.kind) {
+    case 'drude':
+      return [];
+    case 'hydrogenic':
+      return hydrogenicNotes(s);
+    case 'response-table':
+      return responseTableResponse(s).notes;
+    case 'oscillator-spectrum':
+      return oscillatorSpectrumResponse(s).notes;
+  }
+}
+
+/** Warnings every pair with this species carries (approximate inputs). */
+export function speciesWarnings(s: Species): string[] {
+  const approximate =
+    (s.kind === 'response-table' && responseTableResponse(s).approximateB) || (s.kind === 'oscillator-spectrum' && oscillatorSpectrumResponse(s).approximateB);
+  return approximate
+    ? [`D7 is APPROXIMATE: ${s.name} has only a static B, so B(0; iu, −iu) ≈ B·alpha(iu)/alpha(0) (for hydrogen this overestimates |D7| by 17% in H–H; see README)`]
+    : [];
 }

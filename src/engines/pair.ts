@@ -6,6 +6,7 @@ import type { Species } from '../model/species.js';
 import { InputError } from '../model/errors.js';
 import type { D7Triple, Route, RouteOptions, RouteResult } from './route.js';
 import { defaultRoutes, routeByName, routeNames } from './routes.js';
+import { speciesWarnings } from './capabilities.js';
 
 export interface PairOptions extends RouteOptions {
   /** Route names to run (default: the default routes). The first run is the reference. */
@@ -82,6 +83,7 @@ export function computePair(a: Species, b: Species, options: PairOptions = {}): 
   for (const r of results) if (!r.converged) warnings.push(`route ${r.name} did not converge: its numbers are untrusted`);
   if (spread.max > agreement) warnings.push(`routes disagree: largest relative spread ${spread.max.toExponential(2)} > ${agreement.toExponential(0)}`);
   if (results.length < 2) warnings.push('only one route could run: no cross-check');
+  warnings.push(...new Set([...speciesWarnings(a), ...speciesWarnings(b)]));
   if (options.routes) for (const s of skipped) warnings.push(`route ${s.name} skipped: ${s.reason}`);
   const ref = results[0];
   if (ref.permanent) {

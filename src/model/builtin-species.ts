@@ -5,8 +5,10 @@
  * (Quelon, Virid, Sorrel, Tarnet) and one elongated anisotropic centre (Spindlet). Their parameters are
  * made up, chosen only to be of a realistic size; they describe no real substance.
  */
-import { drude, drudeAnisotropic } from './drude.js';
+import { ATOM_LIBRARY, HYDROGEN_EXACT } from '../data/atom-library.js';
+import { drude, drudeAnisotropic, drudeFromTargets } from './drude.js';
 import { InputError } from './errors.js';
+import { hydrogenic } from './hydrogenic.js';
 import { parseInlineSpecies } from './species-kinds.js';
 import type { Species } from './species.js';
 
@@ -21,8 +23,29 @@ export const demoSpecies: readonly Species[] = [
   drudeAnisotropic({ q: 1.2, m: 0.45, wx: 0.8, wy: 0.8, wz: 0.55 }, 'Spindlet', INVENTED),
 ];
 
-/** Extra built-in collections (e.g. a sourced atom library) register here. */
-const collections: Array<() => readonly Species[]> = [() => demoSpecies];
+/**
+ * Real atoms: H computed from first principles (kind hydrogenic), and QDOs fitted to published (alpha, C6, C8):
+ * H-qdo (hydrogen's exact values, to compare the model with the exact atom) and He, Ne, Ar, Kr, Xe
+ * (src/data/atom-library.ts names the source of every value).
+ */
+export const atomLibrarySpecies: readonly Species[] = [
+  hydrogenic({ Z: 1 }, 'H', 'hydrogen computed from first principles (Sturmian pseudo-spectrum; exact non-relativistic, infinite nuclear mass)'),
+  drudeFromTargets(
+    { alpha: HYDROGEN_EXACT.alpha1.value, C6: HYDROGEN_EXACT.C6.value, C8: HYDROGEN_EXACT.C8.value },
+    'H-qdo',
+    `QDO fitted to hydrogen's exact alpha = 9/2 and C6, C8 (${HYDROGEN_EXACT.C6.source})`,
+  ),
+  ...ATOM_LIBRARY.map((a) =>
+    drudeFromTargets(
+      { alpha: a.alpha.value, C6: a.C6.value, C8: a.C8.value },
+      a.symbol,
+      `QDO fitted to alpha (${a.alpha.source}), C6 (${a.C6.source}), C8 (${a.C8.source})`,
+    ),
+  ),
+];
+
+/** Extra built-in collections register here; the demo set comes first, then the atom library. */
+const collections: Array<() => readonly Species[]> = [() => demoSpecies, () => atomLibrarySpecies];
 
 /** Register another collection of built-in species (used by data modules at import time). */
 export function registerBuiltinCollection(provider: () => readonly Species[]): void {

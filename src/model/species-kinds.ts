@@ -4,6 +4,8 @@
  */
 import { drude, drudeAnisotropic, drudeFromTargets } from './drude.js';
 import { InputError } from './errors.js';
+import { DEFAULT_HYDROGENIC_BASIS, hydrogenic } from './hydrogenic.js';
+import { oscillatorSpectrum, responseDataFromText } from './response-data.js';
 import type { Species } from './species.js';
 
 /** A kind's builder: `fields` are raw values (numbers or numeric strings); `name` is used in messages. */
@@ -37,6 +39,27 @@ export const speciesKinds: Record<string, SpeciesKind> = {
     fields: ['alpha', 'C6', 'C8'],
     build(f, name, source) {
       return drudeFromTargets({ alpha: f.alpha as number, C6: f.C6 as number, C8: f.C8 as number }, name, source);
+    },
+  },
+  hydrogenic: {
+    summary: `hydrogen-like atom computed from first principles: Z (nuclear charge, default 1), basis (Sturmian functions per l, default ${DEFAULT_HYDROGENIC_BASIS})`,
+    fields: ['Z', 'basis'],
+    build(f, name, source) {
+      return hydrogenic({ Z: f.Z, basis: f.basis }, name, source);
+    },
+  },
+  spectrum: {
+    summary: 'dipole pseudo-spectrum (species files): lists energies (Eh) and strengths, static B, optional electrons; response route only, D7 approximate',
+    fields: ['energies', 'strengths', 'B', 'electrons'],
+    build(f, name, source) {
+      return oscillatorSpectrum(f, name, source);
+    },
+  },
+  table: {
+    summary: 'tabulated alpha(iu) and B(0;iu,-iu) (species files): data = the response-data text (see README); response route only',
+    fields: ['data'],
+    build(f, name, source) {
+      return responseDataFromText(f.data, name, source);
     },
   },
 };

@@ -4,11 +4,15 @@
  * computational capabilities in `src/engines/capabilities.ts` (see DEVELOPERS.md).
  */
 import type { DrudeSpecies } from './drude.js';
+import type { HydrogenicSpecies } from './hydrogenic.js';
+import type { OscillatorSpectrumSpecies, ResponseTableSpecies } from './response-data.js';
 
 export type { DrudeSpecies } from './drude.js';
+export type { HydrogenicSpecies } from './hydrogenic.js';
+export type { OscillatorSpectrumSpecies, ResponseTableSpecies } from './response-data.js';
 
 /** Any species. */
-export type Species = DrudeSpecies;
+export type Species = DrudeSpecies | HydrogenicSpecies | ResponseTableSpecies | OscillatorSpectrumSpecies;
 
 /** A one-line, human description of a species' parameters (atomic units). */
 export function describeSpecies(s: Species): string {
@@ -17,6 +21,21 @@ export function describeSpecies(s: Species): string {
       const [wx, wy, wz] = s.w;
       const freq = wx === wy && wy === wz ? `w=${fmt(wx)}` : `wx=${fmt(wx)},wy=${fmt(wy)},wz=${fmt(wz)}`;
       return `drude q=${fmt(s.q)} m=${fmt(s.m)} ${freq}`;
+    }
+    case 'hydrogenic':
+      return `hydrogenic Z=${fmt(s.Z)} basis=${s.basis} (Sturmian pseudo-spectrum, l ≤ 3)`;
+    case 'response-table': {
+      const last = s.u.length - 1;
+      const b = s.hyperB ? 'B(0;iu,-iu) tabulated' : `static B=${fmt(s.staticB ?? 0)} (D7 approximate)`;
+      const extra = s.alpha3 ? ', alpha2, alpha3' : s.alpha2 ? ', alpha2' : '';
+      const n = s.electrons !== undefined ? `, N=${fmt(s.electrons)}` : '';
+      return `response table: ${s.u.length} points u=0…${fmt(s.u[last])} Eh, alpha(0)=${fmt(s.alpha[0])}${extra}, ${b}${n}`;
+    }
+    case 'oscillator-spectrum': {
+      let a0 = 0;
+      s.energies.forEach((w, i) => (a0 += s.strengths[i] / (w * w)));
+      const n = s.electrons !== undefined ? `, N=${fmt(s.electrons)}` : '';
+      return `pseudo-spectrum: ${s.energies.length} lines, alpha(0)=${fmt(a0)}, static B=${fmt(s.staticB)} (D7 approximate)${n}`;
     }
   }
 }

@@ -1,6 +1,7 @@
 /** `dispole species`: list the built-in species (and those of a species file) with their data and sources. */
 import type { Command } from 'commander';
-import { builtinSpecies } from '../../model/builtin-species.js';
+import { atomLibrarySpecies, builtinSpecies } from '../../model/builtin-species.js';
+import { atomLibraryText } from '../../report/atom-library.js';
 import { describeSpecies, type Species } from '../../model/species.js';
 import { speciesKinds } from '../../model/species-kinds.js';
 import { speciesToJson } from '../../report/species-json.js';
@@ -21,7 +22,10 @@ export function registerSpecies(program: Command, ctx: CommandContext): void {
         ctx.io.stdout(JSON.stringify(all.map(speciesToJson)) + '\n');
         return;
       }
-      ctx.io.stdout(textTable(['name', 'parameters (atomic units)', 'source'], all.map((s) => [s.name, describeSpecies(s), s.source ?? '']), 'left') + '\n');
+      // library QDOs: the long per-value sources are listed once, under the library table below
+      const shortSource = (s: Species) => (atomLibrarySpecies.includes(s) && s.kind === 'drude' ? 'QDO fitted to the atom library values below' : (s.source ?? ''));
+      ctx.io.stdout(textTable(['name', 'parameters (atomic units)', 'source'], all.map((s) => [s.name, describeSpecies(s), shortSource(s)]), 'left') + '\n');
+      ctx.io.stdout('\n' + atomLibraryText() + '\n');
       ctx.io.stdout('\nInline kinds: ' + Object.entries(speciesKinds).map(([k, v]) => `${k} (${v.summary})`).join('; ') + '\n');
     });
 }

@@ -1,7 +1,7 @@
 /** The "response" route: quadrature over imaginary frequency of each species' response functions. */
 import type { Route, RouteResult } from '../route.js';
 import { d7 } from '../route.js';
-import { isotropicResponseOf, tensorResponseOf } from '../capabilities.js';
+import { isotropicResponseOf, responsePowerLimit, speciesNotes, tensorResponseOf } from '../capabilities.js';
 import { isotropicResponseCoefficients } from './isotropic-kernel.js';
 import { tensorResponseCoefficients, type ResponseCoefficients } from './tensor-kernel.js';
 
@@ -22,7 +22,8 @@ export const responseRoute: Route = {
       if (!tA || !tB) throw new Error(this.unsupported(A, B) ?? 'response route unavailable');
       r = tensorResponseCoefficients(tA, tB, { relTol: options.relTol, maxEnergyPower: options.maxEnergyPower });
     }
-    const power = options.maxEnergyPower ?? 10;
+    // species whose data stop at alpha_1 (or alpha_2) give no C8 (C10)
+    const power = Math.min(options.maxEnergyPower ?? 10, responsePowerLimit(A), responsePowerLimit(B));
     const { E5, D4a, D4b } = r.permanent;
     return {
       name: 'response',
@@ -33,7 +34,7 @@ export const responseRoute: Route = {
       error: power >= 10 ? r.error : { C6: r.error.C6, C8: r.error.C8, D7a: r.error.D7a, D7b: r.error.D7b },
       ...(E5 !== 0 || D4a !== 0 || D4b !== 0 ? { permanent: { E5, D4: d7(D4a, D4b) } } : {}),
       converged: r.converged,
-      notes: [`${r.kernel} kernel, ${r.evaluations} frequency points`],
+      notes: [`${r.kernel} kernel, ${r.evaluations} frequency points`, ...new Set([...speciesNotes(A), ...speciesNotes(B)])],
     };
   },
 };
