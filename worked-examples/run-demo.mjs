@@ -7,6 +7,10 @@ const steps = [
   ['pair', 'Quelon', 'Virid'],
   ['pair', 'Quelon', 'Quelon', '--digits', '8'],
   ['pair', 'Spindlet', 'Virid', '--units', 'si'],
+  ['table', '--species', 'worked-examples/tessaly-species.yaml', '--markdown'],
+  ['cluster', 'worked-examples/cluster-tessaly-ring.xyz'],
+  ['pair', 'H', 'H'],
+  ['pair', 'H', 'Zephyrine', '--species', 'worked-examples/zephyrine-response.csv'],
 ];
 
 let worst = 0;

@@ -4,9 +4,11 @@ import type { CommandContext } from '../context.js';
 import { registerPair } from './pair.js';
 import { registerCluster } from './cluster.js';
 import { registerSpecies } from './species.js';
+import { registerTable } from './table.js';
 
 export const commandRegistrars: Array<(program: Command, ctx: CommandContext) => void> = [
   registerPair,
   registerCluster,
   registerSpecies,
+  registerTable,
 ];
