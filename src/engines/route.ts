@@ -31,6 +31,44 @@ export interface RouteResult {
   notes: string[];
 }
 
+/**
+ * Coefficients with full dipole vectors, as the state-based engines (perturbation, force balance) produce them,
+ * atomic units: C_n in Eh·a0^n; D7 vectors lim R^7 <mu> in e·a0^8; first-order (permanent-quadrupole) terms
+ * E ∋ E5/R^5 and mu ∋ D4/R^4 (zero for spherical centres).
+ */
+export interface VectorCoefficients {
+  C6: number;
+  C8?: number;
+  C10?: number;
+  D7a: Vec3;
+  D7b: Vec3;
+  permanent: { E5: number; D4a: Vec3; D4b: Vec3 };
+}
+
+/**
+ * The {@link RouteResult} of engine output with dipole vectors. `spherical`: both centres are spherical, so
+ * the first-order terms vanish by symmetry and any rounding residue there is dropped.
+ */
+export function vectorRouteResult(
+  name: string,
+  r: VectorCoefficients,
+  extra: { spherical: boolean; converged: boolean; notes: string[] },
+): RouteResult {
+  const { E5, D4a, D4b } = r.permanent;
+  const hasPermanent = !extra.spherical && (E5 !== 0 || D4a.some((x) => x !== 0) || D4b.some((x) => x !== 0));
+  return {
+    name,
+    C6: r.C6,
+    ...(r.C8 !== undefined ? { C8: r.C8 } : {}),
+    ...(r.C10 !== undefined ? { C10: r.C10 } : {}),
+    D7: d7(r.D7a[2], r.D7b[2]),
+    D7vectors: { a: r.D7a, b: r.D7b },
+    ...(hasPermanent ? { permanent: { E5, D4: d7(D4a[2], D4b[2]) } } : {}),
+    converged: extra.converged,
+    notes: extra.notes,
+  };
+}
+
 /** Options every route accepts; routes ignore what they do not use. */
 export interface RouteOptions {
   /** Relative tolerance for quadratures and convergence loops. Default 1e-13. */

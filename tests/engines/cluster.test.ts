@@ -6,13 +6,13 @@ import fc from 'fast-check';
 import { describe, expect, test } from 'vitest';
 import { drude, drudeAnisotropic, type DrudeSpecies } from '../../src/model/drude.js';
 import type { Vec3 } from '../../src/model/types.js';
-import { InputError } from '../../src/model/errors.js';
 import { computeCluster, freeAlpha, freeC6, type ClusterCentre } from '../../src/engines/cluster/cluster.js';
 import { coupledPairZeroPointShift, forceBalanceCoefficients } from '../../src/engines/force-balance/pair-force-balance.js';
 import { dipoleCouplingBlock, thirdDerivativeTensor } from '../../src/engines/cluster/dipole-tensors.js';
 import { couplingTerms } from '../../src/hamiltonian/multipole-coupling.js';
 import { expectClose } from '../helpers/tolerance.js';
 import { seededRandom, uniform } from '../helpers/random.js';
+import { inputErrorOf } from '../helpers/input-error.js';
 
 const Quelon = drude({ q: 1.1, m: 0.38, w: 0.72 }, 'Quelon');
 const Virid = drude({ q: 1.45, m: 0.52, w: 0.6 }, 'Virid');
@@ -174,15 +174,7 @@ describe('symmetry and invariance', () => {
 });
 
 describe('input errors', () => {
-  const errorOf = (f: () => unknown): InputError => {
-    try {
-      f();
-    } catch (e) {
-      if (e instanceof InputError) return e;
-      throw e;
-    }
-    throw new Error('expected an InputError');
-  };
+  const errorOf = inputErrorOf;
   test('overlapping centres (inside the pair polarisation catastrophe) name both lines', () => {
     const e = errorOf(() =>
       computeCluster([

@@ -1,19 +1,11 @@
 import { describe, expect, test } from 'vitest';
 import { parseXyz } from '../../src/model/geometry.js';
-import { InputError } from '../../src/model/errors.js';
 import { BOHR_IN_ANGSTROM } from '../../src/model/units.js';
 import { expectClose } from '../helpers/tolerance.js';
+import { inputErrorOf } from '../helpers/input-error.js';
 
-/** The InputError thrown by f (its field carries file:line). */
-function errorOf(f: () => unknown): InputError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof InputError) return e;
-    throw e;
-  }
-  throw new Error('expected an InputError');
-}
+/** The input error thrown by f (its field carries file:line). */
+const errorOf = inputErrorOf;
 
 describe('parseXyz', () => {
   test('reads count, comment and labelled centres; ångström by default, bohr on request', () => {

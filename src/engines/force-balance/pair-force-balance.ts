@@ -38,19 +38,10 @@ import {
   multiply,
   pairKey,
 } from './harmonic-polynomial.js';
+import type { VectorCoefficients } from '../route.js';
 
-/** The force-balance coefficients of a QDO pair (atomic units). */
-export interface ForceBalanceCoefficients {
-  C6: number;
-  /** Present when asked for (maxEnergyPower ≥ 8, ≥ 10). */
-  C8?: number;
-  C10?: number;
-  /** lim R^7 <mu_A> and lim R^7 <mu_B>, e·a0^8. */
-  D7a: Vec3;
-  D7b: Vec3;
-  /** First-order (permanent-quadrupole) terms: E ∋ E5/R^5, mu ∋ D4/R^4 (e·a0^5). Zero for isotropic QDOs. */
-  permanent: { E5: number; D4a: Vec3; D4b: Vec3 };
-}
+/** The force-balance coefficients of a QDO pair (atomic units; C8, C10 present when maxEnergyPower allows). */
+export type ForceBalanceCoefficients = VectorCoefficients;
 
 /** The order-n coupling of two QDOs as a polynomial in the six Drude coordinates, at R = 1 (hartree). */
 export function couplingPolynomial(order: number, A: DrudeSpecies, B: DrudeSpecies): Poly6 {

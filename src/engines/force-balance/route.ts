@@ -5,7 +5,8 @@
 import type { Species } from '../../model/species.js';
 import type { DrudeSpecies } from '../../model/drude.js';
 import type { Route, RouteResult } from '../route.js';
-import { d7 } from '../route.js';
+import { vectorRouteResult } from '../route.js';
+import { isSpherical } from '../capabilities.js';
 import { forceBalanceCoefficients } from './pair-force-balance.js';
 
 /** The species as a harmonic centre, or the reason it is not one. */
@@ -33,20 +34,12 @@ export const forceBalanceRoute: Route = {
     if (typeof a === 'string' || typeof b === 'string') throw new Error(this.unsupported(A, B) ?? 'force-balance route unavailable');
     const power = options.maxEnergyPower ?? 10;
     const r = forceBalanceCoefficients(a, b, power);
-    const { E5, D4a, D4b } = r.permanent;
-    const hasPermanent = E5 !== 0 || D4a.some((x) => x !== 0) || D4b.some((x) => x !== 0);
-    return {
-      name: 'force-balance',
-      C6: r.C6,
-      ...(r.C8 !== undefined ? { C8: r.C8 } : {}),
-      ...(r.C10 !== undefined ? { C10: r.C10 } : {}),
-      D7: d7(r.D7a[2], r.D7b[2]),
-      D7vectors: { a: r.D7a, b: r.D7b },
-      ...(hasPermanent ? { permanent: { E5, D4: d7(D4a[2], D4b[2]) } } : {}),
+    return vectorRouteResult('force-balance', r, {
+      spherical: isSpherical(A) && isSpherical(B),
       converged: true,
       notes: [
         'exact Gaussian means: C6 from the coupled normal modes, C8 and C10 from Dalgarno–Lewis functions, D7 and D4 by force balance',
       ],
-    };
+    });
   },
 };

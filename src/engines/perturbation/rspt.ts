@@ -11,6 +11,7 @@
  * Everything is evaluated at R = 1, so the results are the coefficients C_n (Eh·a0^n) and D7 (e·a0^8).
  */
 import type { Vec3 } from '../../model/types.js';
+import type { VectorCoefficients } from '../route.js';
 import { AXIS_MONOMIALS } from '../../hamiltonian/monomial.js';
 import { couplingTerms } from '../../hamiltonian/multipole-coupling.js';
 import type { LocalSpace } from './local-space.js';
@@ -21,17 +22,8 @@ export interface PerturbationOptions {
   maxEnergyPower?: 6 | 8 | 10;
 }
 
-export interface PerturbationCoefficients {
-  C6: number;
-  C8?: number;
-  C10?: number;
-  /** lim R^7 <mu_A> (all three components), e·a0^8; A at the origin, B at +R ẑ. */
-  D7a: Vec3;
-  /** lim R^7 <mu_B>, e·a0^8. */
-  D7b: Vec3;
-  /** First-order (permanent-moment) terms: E5 = <0|V4|0> (energy ∝ R^-5), D4 = −2<0|mu R0 V3|0> (dipole ∝ R^-4). */
-  permanent: { E5: number; D4a: Vec3; D4b: Vec3 };
-}
+/** C6, C8, C10, the D7 vectors (A at the origin, B at +R ẑ) and the first-order terms E5 = <0|V4|0>, D4 = −2<0|mu R0 V3|0>. */
+export type PerturbationCoefficients = VectorCoefficients;
 
 /** C6, C8, C10 and the D7 vectors of a pair of local spaces by RSPT. */
 export function perturbationCoefficients(A: LocalSpace, B: LocalSpace, options: PerturbationOptions = {}): PerturbationCoefficients {
