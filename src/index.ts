@@ -54,10 +54,32 @@ export {
   allPairs, selectPairs, computeTable, requireDistinctSpecies, rowStatus, untrustedCount,
   type CoefficientTable, type TableRow, type TableOptions, type TableSettings, type RowStatus, type SpeciesPair,
 } from './engines/table.js';
+// finite-R exact solution (route "exact", curves, densities)
+export { exactSolver, type ExactOptions, type ExactPoint, type ExactState, type BasisStep } from './engines/exact/exact-solver.js';
+export { exactModel, hamiltonianAt, axialProblem, MAX_EXACT_ORDER, type ExactModel } from './engines/exact/pair-hamiltonian.js';
+export { pairBasis, fullProductDimension, type PairBasis } from './engines/exact/pair-basis.js';
+export { solveInBasis, type BasisSolution } from './engines/exact/ground-state.js';
+export { localisationCheck, catastropheDistance, type LocalisationCheck } from './engines/exact/localisation.js';
+export { exactAsymptotics, asymptoticGrid, type ExactAsymptotics } from './engines/exact/exact-asymptotics.js';
+export { exactCurve, separationGrid, type ExactCurve, type GridSpacing } from './engines/exact/curve.js';
+export { densityChange, type DensityMap } from './engines/exact/density.js';
+export { exactRoute } from './engines/exact/route.js';
+// symbolic engine: closed forms for QDO pairs and checks of users' formulas (mathjs loads on the first check)
+export {
+  deriveQuantities, defaultQuantities, supportedQuantities, parseQuantityName, SYMBOLIC_QUANTITIES, DEFAULT_QUANTITIES,
+  QUANTITY_MEANING, type SymbolicQuantity, type DerivedQuantity, type VariableSet,
+} from './engines/symbolic/derive.js';
+export { symbolTable, type PairLayout, type SymbolTable, type SymbolInfo } from './engines/symbolic/symbols.js';
+export { closedFormsEqual, evaluateClosedForm, evaluateClosedFormNumber, type ClosedForm } from './engines/symbolic/closed-form.js';
+export { checkFormula, type CheckRequest, type CheckResult } from './engines/symbolic/formula-check.js';
 
 // report
 export { pairToJson, pairToText, coefficientsToSI } from './report/pair-report.js';
 export { renderTable, TABLE_FORMATS, tableToJson, type TableFormat } from './report/table/index.js';
+export { curveData, curveToText, curveToCsv, curveToJson, type CurveData } from './report/curve-report.js';
+export { curveFigure } from './report/svg/curve-figure.js';
+export { densityFigure, type DensityFigureSpec } from './report/svg/density-figure.js';
+export { derivedToText, derivedToJson, checkToText, checkToJson } from './report/symbolic-report.js';
 
 // cli (in-process runner, for embedding and tests)
 export { runCli, EXIT } from './cli/program.js';

@@ -10,6 +10,7 @@ import { clusterToCsv, clusterToJson, clusterToText } from '../../report/cluster
 import { integerIn, loadSpeciesFile, SPECIES_FILE_HELP, SPECIES_TOKEN_HELP } from '../common.js';
 import type { CommandContext } from '../context.js';
 import type { CliIO } from '../io.js';
+import { EXIT } from '../exit-codes.js';
 
 interface ClusterFlags {
   bohr?: boolean;
@@ -84,7 +85,7 @@ export function registerCluster(program: Command, ctx: CommandContext): void {
       if (flags.json) ctx.io.stdout(JSON.stringify(clusterToJson(result, source)) + '\n');
       else if (flags.csv) ctx.io.stdout(clusterToCsv(result));
       else ctx.io.stdout(clusterToText(result, source, flags.digits));
-      if (!result.converged) ctx.exitCode = 3;
+      if (!result.converged) ctx.exitCode = EXIT.untrusted;
     });
 }
 

@@ -1,10 +1,11 @@
 /** `dispole pair <A> <B>`: C6, C8, C10 and D7 of one pair by every route, compared. */
 import type { Command } from 'commander';
 import { computePair } from '../../engines/pair.js';
-import { routeNames } from '../../engines/routes.js';
+import { defaultRoutes, routeNames } from '../../engines/routes.js';
 import { pairToJson, pairToText, type UnitSystem } from '../../report/pair-report.js';
 import { integerIn, loadSpeciesFile, oneOf, positiveNumber, resolveAll, SPECIES_FILE_HELP, SPECIES_TOKEN_HELP } from '../common.js';
 import type { CommandContext } from '../context.js';
+import { EXIT } from '../exit-codes.js';
 
 interface PairFlags {
   json?: boolean;
@@ -14,6 +15,7 @@ interface PairFlags {
   digits: number;
   agree: number;
   maxQuanta?: number;
+  exact?: boolean;
 }
 
 export function registerPair(program: Command, ctx: CommandContext): void {
@@ -33,16 +35,19 @@ export function registerPair(program: Command, ctx: CommandContext): void {
     .option('--routes <list>', `comma-separated routes to run, first = reference (known: ${routeNames().join(', ')})`)
     .option('--digits <n>', 'significant digits in the table', integerIn(3, 17), 10)
     .option('--agree <x>', 'largest relative spread between routes accepted as agreement', positiveNumber, 1e-8)
+    .option('--exact', 'also run the "exact" route (finite-R diagonalisation fitted in 1/R; about a second)')
     .option('--max-quanta <n>', 'harmonic truncation of QDO bases (perturbation route); default: the exact minimum', integerIn(1, 40))
     .action((a: string, b: string, flags: PairFlags) => {
       const file = loadSpeciesFile(ctx.io, flags.species);
       const [A, B] = resolveAll([a, b], file);
+      const listed = flags.routes?.split(',').map((s) => s.trim()).filter(Boolean);
+      const routes = flags.exact ? [...new Set([...(listed ?? defaultRoutes.map((r) => r.name)), 'exact'])] : listed;
       const result = computePair(A, B, {
-        routes: flags.routes?.split(',').map((s) => s.trim()).filter(Boolean),
+        routes,
         agreement: flags.agree,
         maxQuanta: flags.maxQuanta,
       });
       ctx.io.stdout(flags.json ? JSON.stringify(pairToJson(result, flags.units)) + '\n' : pairToText(result, { digits: flags.digits, units: flags.units }));
-      if (!result.trusted) ctx.exitCode = 3;
+      if (!result.trusted) ctx.exitCode = EXIT.untrusted;
     });
 }

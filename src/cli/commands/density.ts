@@ -1,0 +1,118 @@
+/** `dispole density <A> <B> --R … --svg FILE`: where the charge moves, as a colour map of Δρ on the axis plane. */
+import type { Command } from 'commander';
+import { densityChange, type DensityMap } from '../../engines/exact/density.js';
+import { exactSolver } from '../../engines/exact/exact-solver.js';
+import type { DrudeSpecies } from '../../model/drude.js';
+import { bohrToAngstrom } from '../../model/units.js';
+import { sig } from '../../report/format.js';
+import { unitName } from '../../report/curve-report.js';
+import { densityFigure, type DensityPanel } from '../../report/svg/density-figure.js';
+import { integerIn, positiveNumber, SPECIES_TOKEN_HELP } from '../common.js';
+import type { CommandContext } from '../context.js';
+import { exactOptions, exactPair, toBohr, type ExactFlags } from './curve.js';
+import { EXIT } from '../exit-codes.js';
+
+interface DensityFlags extends ExactFlags {
+  R: number;
+  svg: string;
+  grid: number;
+  json?: boolean;
+}
+
+/** Largest gain and loss of a map and where they are (bohr, relative to the centre). */
+function extremes(m: DensityMap) {
+  let gain = { value: 0, x: 0, z: 0 }, loss = { value: 0, x: 0, z: 0 };
+  for (let i = 0; i < m.x.length; i++)
+    for (let j = 0; j < m.z.length; j++) {
+      const v = m.change[i * m.z.length + j];
+      if (v > gain.value) gain = { value: v, x: m.x[i], z: m.z[j] };
+      if (v < loss.value) loss = { value: v, x: m.x[i], z: m.z[j] };
+    }
+  return { gain, loss, isolatedPeak: m.peak };
+}
+
+export function registerDensity(program: Command, ctx: CommandContext): void {
+  const cmd = program
+    .command('density')
+    .summary('map of the change of each centre’s Drude-particle density at one R (SVG)')
+    .description(
+      'Solve the pair at separation R (A at the origin, B at +R on z) and draw, for each centre, the change of its\n' +
+        'Drude-particle density (interacting minus isolated ground state) in the plane containing the axis:\n' +
+        'red where the particle gains density, blue where it loses it. Prints a summary (--json for JSON).\n' +
+        `Each of A, B is ${SPECIES_TOKEN_HELP}.`,
+    )
+    .argument('<A>', 'species at the origin')
+    .argument('<B>', 'species at +R on z')
+    .requiredOption('--R <distance>', 'separation (in --length units)', positiveNumber)
+    .requiredOption('--svg <file>', 'write the figure to FILE')
+    .option('--grid <n>', 'grid points per side of each map', integerIn(41, 401), 161)
+    .option('--json', 'print the summary as one JSON object');
+  exactOptions(cmd).action((a: string, b: string, flags: DensityFlags) => {
+    const [A, B] = exactPair(ctx, [a, b], flags.species);
+    const R = toBohr(flags.R, flags.length);
+    const state = exactSolver(A, B, { order: flags.order, tolerance: flags.tolerance, maxQuanta: flags.maxQuanta }).solve(R);
+    const p = state.point;
+    const unit = unitName(flags.length);
+    const len = (x: number) => (flags.length === 'bohr' ? x : bohrToAngstrom(x));
+    const maps = (['a', 'b'] as const).map((c) => {
+      const s: DrudeSpecies = c === 'a' ? A : B;
+      const half = 3.6 * Math.max(...s.w.map((w) => 1 / Math.sqrt(2 * s.m * w)));
+      const axis = Float64Array.from({ length: flags.grid }, (_, k) => -half + (2 * half * k) / (flags.grid - 1));
+      return densityChange(state, c, axis, axis);
+    });
+    const panels = maps.map((m, k): DensityPanel => {
+      const s = k === 0 ? A : B;
+      const width = (w: number) => len(1 / Math.sqrt(2 * s.m * w));
+      return {
+        label: k === 0 ? 'A' : 'B',
+        name: s.name,
+        x: Float64Array.from(m.x, len),
+        z: Float64Array.from(m.z, len),
+        change: flags.length === 'bohr' ? m.change : Float64Array.from(m.change, (v) => v / bohrToAngstrom(1) ** 3),
+        partnerSide: k === 0 ? 1 : -1,
+        width: { perp: width(s.w[0]), z: width(s.w[2]) },
+      };
+    }) as [DensityPanel, DensityPanel];
+    const status = p.trusted ? '' : `UNTRUSTED: ${p.reasons.join('; ')}`;
+    const footer = [
+      `Exact ground state, multipole order ${state.model.order}: basis ${p.quanta} quanta, dimension ${p.dimension} (${p.fullDimension} without the L_{z} = 0 and mirror reduction).`,
+      `Induced dipoles μ_{A,z} = ${sig(p.muA, 5)} e a_{0}, μ_{B,z} = ${sig(p.muB, 5)} e a_{0}; interaction energy ${sig(p.energy, 5)} E_{h}. Dotted: half maximum of the isolated density.`,
+      ...(status ? [status.length > 150 ? status.slice(0, 147) + '…' : status] : []),
+    ];
+    const separation = `R = ${sig(flags.R, 5)} ${unit}`;
+    const svg = densityFigure({
+      title: `Change of the Drude-particle densities, ${A.name} – ${B.name} at ${separation} (plane y = 0)`,
+      panels,
+      lengthUnit: unit,
+      densityUnit: flags.length === 'bohr' ? 'a_{0}^{-3}' : 'Å^{-3}',
+      separation,
+      footer,
+    });
+    ctx.io.writeFile(flags.svg, svg, flags.force);
+    const summary = {
+      R: flags.R,
+      R_bohr: R,
+      unit: flags.length,
+      hamiltonian: { multipoleOrder: state.model.order },
+      basis: { quanta: p.quanta, dimension: p.dimension, dimensionUnreduced: p.fullDimension, residual: p.residual },
+      muA: p.muA,
+      muB: p.muB,
+      energy: p.energy,
+      densityChange: { a: extremes(maps[0]), b: extremes(maps[1]), units: 'a0^-3 (positions in bohr relative to the centre)' },
+      converged: p.converged,
+      trusted: p.trusted,
+      reasons: p.reasons,
+      svg: flags.svg,
+    };
+    if (flags.json) ctx.io.stdout(JSON.stringify(summary) + '\n');
+    else {
+      const lines = [`Pair ${A.name} – ${B.name} at ${separation}: exact ground state through multipole order ${state.model.order}`, `  basis ${p.quanta} quanta, dimension ${p.dimension} (${p.fullDimension} unreduced), residual ${p.residual.toExponential(1)} Eh`, `  mu_A,z = ${sig(p.muA)} e a0, mu_B,z = ${sig(p.muB)} e a0, E_int = ${sig(p.energy)} Eh`];
+      for (const [k, e] of [['A', summary.densityChange.a], ['B', summary.densityChange.b]] as const)
+        lines.push(`  ${k}: largest gain ${sig(e.gain.value, 4)} a0^-3 at (x, z) = (${sig(e.gain.x, 3)}, ${sig(e.gain.z, 3)}) bohr, largest loss ${sig(e.loss.value, 4)} a0^-3 at (${sig(e.loss.x, 3)}, ${sig(e.loss.z, 3)}) bohr; isolated peak ${sig(e.isolatedPeak, 4)} a0^-3`);
+      lines.push(`  wrote ${flags.svg}`);
+      if (!p.trusted) lines.push(`UNTRUSTED: ${p.reasons.join('; ')}`);
+      ctx.io.stdout(lines.join('\n') + '\n');
+    }
+    if (!p.trusted) ctx.exitCode = EXIT.untrusted;
+  });
+}

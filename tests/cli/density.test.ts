@@ -1,0 +1,67 @@
+/** `dispole density`: the SVG map of the density change, its summary, and bad input. */
+import { describe, expect, test } from 'vitest';
+import { memoryIO } from '../../src/cli/io.js';
+import { runCli } from '../../src/cli/program.js';
+import { expectClose } from '../helpers/tolerance.js';
+
+async function run(argv: string[], files: Record<string, string> = {}) {
+  const io = memoryIO(files);
+  const code = await runCli(argv, io);
+  return { code, out: io.out, err: io.err, files: io.files };
+}
+
+// Quelon and Virid are the invented demo species (src/model/builtin-species.ts)
+describe('dispole density', () => {
+  test('writes a two-panel SVG map and a JSON summary; each negative end points to the partner', async () => {
+    const { code, out, files } = await run(['density', 'Quelon', 'Virid', '--R', '6', '--svg', 'rho.svg', '--grid', '61', '--json']);
+    expect(code).toBe(0);
+    const svg = files['rho.svg'] as string;
+    expect(svg.match(/<image [^>]*href="data:image\/png;base64,/g)).toHaveLength(2);
+    expect(svg).toContain('A = Quelon');
+    expect(svg).toContain('B = Virid');
+    expect(svg).toMatch(/z − z<tspan[^>]*>A<\/tspan>/);
+    const j = JSON.parse(out);
+    expect(j.trusted).toBe(true);
+    expectClose(j.R_bohr, 6, 1e-15);
+    // A's Drude particle (charge −q) moves towards B at +z, so mu_A,z < 0 < mu_B,z (README, "Geometry and sign")
+    expect(j.muA).toBeLessThan(0);
+    expect(j.muB).toBeGreaterThan(0);
+    expect(j.densityChange.a.gain.z).toBeGreaterThan(0);
+    expect(j.densityChange.b.gain.z).toBeLessThan(0);
+    // the isolated density at the centre is (m w/π)^(3/2) (Gaussian ground state; common practice)
+    expectClose(j.densityChange.a.isolatedPeak, ((0.38 * 0.72) / Math.PI) ** 1.5, 1e-13);
+  });
+  test('the same R in ångström gives the same state; the text summary names the file', async () => {
+    const bohr = JSON.parse((await run(['density', 'Quelon', 'Virid', '--R', '6', '--svg', 'a.svg', '--grid', '41', '--json'])).out);
+    const ang = await run(['density', 'Quelon', 'Virid', '--R', String(6 * 0.529177210903), '--length', 'angstrom', '--svg', 'b.svg', '--grid', '41']);
+    expect(ang.code).toBe(0);
+    expect(ang.out).toMatch(/^Pair Quelon – Virid at R = 3\.1751 Å/);
+    expect(ang.out).toMatch(/wrote b\.svg/);
+    const mu = Number(/mu_A,z = (\S+) e a0/.exec(ang.out)![1]);
+    expectClose(mu, bohr.muA, 1e-9);
+    expect(ang.files['b.svg'] as string).toContain('Å');
+  });
+  test('a separation inside the polarisation catastrophe still draws, marked UNTRUSTED (exit 3)', async () => {
+    const { code, out, files } = await run(['density', 'Quelon', 'Virid', '--R', '2.4', '--svg', 'c.svg', '--grid', '41']);
+    expect(code).toBe(3);
+    expect(out).toMatch(/UNTRUSTED: .*polarisation-catastrophe distance/);
+    expect(files['c.svg'] as string).toContain('UNTRUSTED');
+  });
+  test.each([
+    [['--svg', 'x.svg'], /required option '--R <distance>' not specified/],
+    [['--R', '6'], /required option '--svg <file>' not specified/],
+    [['--R', '-1', '--svg', 'x.svg'], /--R <distance>' argument '-1' is invalid\. must be a finite number > 0/],
+    [['--R', '6', '--svg', 'x.svg', '--grid', '7'], /--grid <n>' argument '7' is invalid\. must be an integer from 41 to 401/],
+  ])('bad input %j: exit 2 with the option named, nothing printed, no file', async (extra, message) => {
+    const { code, out, err, files } = await run(['density', 'Quelon', 'Virid', ...(extra as string[])]);
+    expect(code).toBe(2);
+    expect(out).toBe('');
+    expect(err).toMatch(message as RegExp);
+    expect(files['x.svg']).toBeUndefined();
+  });
+  test('an unknown species is refused with the list of known ones (exit 2)', async () => {
+    const { code, err } = await run(['density', 'Nobody', 'Virid', '--R', '6', '--svg', 'x.svg']);
+    expect(code).toBe(2);
+    expect(err).toMatch(/Nobody: is not a known species; use a built-in name \(.*Quelon/);
+  });
+});
