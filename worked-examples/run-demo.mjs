@@ -9,6 +9,7 @@ const steps = [
   ['pair', 'Spindlet', 'Virid', '--units', 'si'],
   ['table', '--species', 'worked-examples/tessaly-species.yaml', '--markdown'],
   ['cluster', 'worked-examples/cluster-tessaly-ring.xyz'],
+  ['curve', 'Quelon', 'Virid', '--from', '4', '--to', '12', '--length', 'angstrom', '--points', '8'],
   ['pair', 'H', 'H'],
   ['pair', 'H', 'Zephyrine', '--species', 'worked-examples/zephyrine-response.csv'],
 ];
