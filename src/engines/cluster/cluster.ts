@@ -23,7 +23,10 @@ import type { Species } from '../../model/species.js';
 import type { DrudeSpecies } from '../../model/drude.js';
 import type { Vec3 } from '../../model/types.js';
 import { InputError } from '../../model/errors.js';
-import { symmetricEigen } from '../../math/symmetric-eigen.js';
+import { eigenWorkspaceSizes, symmetricEigen, symmetricEigenInWorkspace } from '../../math/symmetric-eigen.js';
+import { gramInWorkspace } from '../../math/gram-matrix.js';
+import { Workspace } from '../../math/simd-kernels.js';
+import { teamSizeFor, withThreadTeam } from '../../math/thread-team.js';
 import { integrateSemiInfinite } from '../../math/semi-infinite-quadrature.js';
 import { coupledPairZeroPointShift } from '../force-balance/pair-force-balance.js';
 import { dipoleCouplingBlock, thirdDerivativeTensor } from './dipole-tensors.js';
@@ -113,36 +116,42 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
     if (progress && i % 50 === 0) progress('pairs', i / N);
   }
 
-  // D = M^-½ (K + C) M^-½
-  const D = new Float64Array(n * n);
-  for (let i = 0; i < N; i++) {
-    for (let a = 0; a < 3; a++) D[(3 * i + a) * n + 3 * i + a] = w[3 * i + a] ** 2;
-    for (let j = 0; j < i; j++) {
-      const blk = dipoleCouplingBlock(separation(centres[i], centres[j]));
-      const f = (q[i] * q[j]) / Math.sqrt(m[i] * m[j]);
-      for (let a = 0; a < 3; a++)
-        for (let b = 0; b < 3; b++) {
-          const x = f * blk[3 * a + b];
-          D[(3 * i + a) * n + 3 * j + b] = x;
-          D[(3 * j + b) * n + 3 * i + a] = x;
-        }
+  // the two O(n³) steps share one team of threads and one workspace (src/math/thread-team.ts): the matrix D, then
+  // the reflectors and the columns of Yᵀ in array A, the normal modes V in Z, the covariance in sigma
+  const { lambda, V, omega, manyBody, F } = withThreadTeam(teamSizeFor(n), (team) => {
+    const ws = new Workspace({ ...eigenWorkspaceSizes(n, team.size), sigma: n * n });
+    team.attach(ws);
+    // D = M^-½ (K + C) M^-½, lower triangle (the eigensolver reads no more; the fresh workspace is zero)
+    const D = ws.view('A');
+    for (let i = 0; i < N; i++) {
+      for (let a = 0; a < 3; a++) D[(3 * i + a) * n + 3 * i + a] = w[3 * i + a] ** 2;
+      for (let j = 0; j < i; j++) {
+        const blk = dipoleCouplingBlock(separation(centres[i], centres[j]));
+        const f = (q[i] * q[j]) / Math.sqrt(m[i] * m[j]);
+        for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) D[(3 * i + a) * n + 3 * j + b] = f * blk[3 * a + b];
+      }
     }
-  }
-  const eig = symmetricEigen(D, n, { progress: progress && ((stage, f) => progress(stage, f)) });
-  const lambda = eig.values, V = eig.vectors!;
-  if (!(lambda[0] > 0)) {
-    throw new InputError('geometry', `the dipole-coupled cluster is unstable (lowest normal mode ω² = ${lambda[0].toExponential(3)} Eh²): centres are too close together (polarisation catastrophe)`);
-  }
-  const omega = lambda.map(Math.sqrt);
-  const manyBody = zeroPointShift(lambda, V, w, n);
-
-  // Y = M^-½ V (2Ω)^-½, so that the covariance is Σ = Y Yᵀ
-  const Y = new Float64Array(n * n);
-  for (let r = 0; r < n; r++) {
-    const s = 1 / Math.sqrt(2 * m[Math.floor(r / 3)]);
-    for (let k = 0; k < n; k++) Y[r * n + k] = (V[r * n + k] * s) / Math.sqrt(omega[k]);
-  }
-  const F = forceBalanceSource(centres, q, Y, N, n, progress);
+    const eig = symmetricEigenInWorkspace(team, ws, n, { progress: progress && ((stage, f) => progress(stage, f)) });
+    const lambda = eig.values, V = eig.vectors!;
+    if (!(lambda[0] > 0)) {
+      throw new InputError('geometry', `the dipole-coupled cluster is unstable (lowest normal mode ω² = ${lambda[0].toExponential(3)} Eh²): centres are too close together (polarisation catastrophe)`);
+    }
+    const omega = lambda.map(Math.sqrt);
+    const manyBody = zeroPointShift(lambda, V, w, n);
+    // Y = M^-½ V (2Ω)^-½, so that the covariance is Σ = Y Yᵀ, the Gram matrix of the columns of Yᵀ
+    const Yt = ws.view('A');
+    const invRoot = omega.map((x) => 1 / Math.sqrt(x));
+    for (let r0 = 0; r0 < n; r0 += 32)
+      for (let k0 = 0; k0 < n; k0 += 32)
+        for (let r = r0; r < Math.min(r0 + 32, n); r++) {
+          const s = 1 / Math.sqrt(2 * m[Math.floor(r / 3)]);
+          for (let k = k0; k < Math.min(k0 + 32, n); k++) Yt[k * n + r] = V[r * n + k] * s * invRoot[k];
+        }
+    const sigma = gramInWorkspace(team, ws, 'A', 'sigma', n, n, progress && ((f) => progress('covariance', 0.9 * f)));
+    const F = forceBalanceSource(centres, q, sigma, N, n);
+    progress?.('covariance', 1);
+    return { lambda, V, omega, manyBody, F };
+  });
 
   // <x> = M^-½ V Ω^-2 Vᵀ M^-½ F, mu_i = −q_i <r_i>
   const x = applyInverse(V, lambda, m, F, n);
@@ -290,26 +299,11 @@ function zeroPointShift(lambda: Float64Array, V: Float64Array, w: ArrayLike<numb
   return -0.25 * s;
 }
 
-/** F_i = −<∂V_dq/∂r_i> over the coupled Gaussian (see the module comment); blocks Σ^{ij} = Y_i Y_jᵀ on the fly. */
-function forceBalanceSource(
-  centres: readonly ClusterCentre[],
-  q: readonly number[],
-  Y: Float64Array,
-  N: number,
-  n: number,
-  progress?: ClusterOptions['progress'],
-): Float64Array {
+/** F_i = −<∂V_dq/∂r_i> over the coupled Gaussian (see the module comment), from the covariance Σ (n×n, full). */
+function forceBalanceSource(centres: readonly ClusterCentre[], q: readonly number[], sigma: Float64Array, N: number, n: number): Float64Array {
+  /** the 3×3 block Σ^{ij} (row-major) */
   const block = (i: number, j: number, out: Float64Array) => {
-    const r0 = 3 * i * n, s0 = 3 * j * n;
-    let a00 = 0, a01 = 0, a02 = 0, a10 = 0, a11 = 0, a12 = 0, a20 = 0, a21 = 0, a22 = 0;
-    for (let k = 0; k < n; k++) {
-      const x0 = Y[r0 + k], x1 = Y[r0 + n + k], x2 = Y[r0 + 2 * n + k];
-      const y0 = Y[s0 + k], y1 = Y[s0 + n + k], y2 = Y[s0 + 2 * n + k];
-      a00 += x0 * y0; a01 += x0 * y1; a02 += x0 * y2;
-      a10 += x1 * y0; a11 += x1 * y1; a12 += x1 * y2;
-      a20 += x2 * y0; a21 += x2 * y1; a22 += x2 * y2;
-    }
-    out[0] = a00; out[1] = a01; out[2] = a02; out[3] = a10; out[4] = a11; out[5] = a12; out[6] = a20; out[7] = a21; out[8] = a22;
+    for (let b = 0; b < 3; b++) for (let c = 0; c < 3; c++) out[3 * b + c] = sigma[(3 * i + b) * n + 3 * j + c];
     return out;
   };
   const self: Float64Array[] = [];
@@ -324,26 +318,19 @@ function forceBalanceSource(
       F[into + a] += factor * s;
     }
   };
-  // pairs in tiles of TILE centres i against every later j, so the rows of j are reused from cache TILE times
-  const TILE = 16;
-  for (let i0 = 0; i0 < N; i0 += TILE) {
-    const i1 = Math.min(N, i0 + TILE);
-    for (let j = i0 + 1; j < N; j++) {
-      for (let i = i0; i < Math.min(i1, j); i++) {
-        const R = separation(centres[i], centres[j]); // R_j − R_i
-        const T3ij = thirdDerivativeTensor(R);
-        const T3ji = T3ij.map((t) => -t); // T3 is odd in R
-        block(i, j, S); // Σ^{ij}; Σ^{ji} is its transpose
-        const qq = q[i] * q[j];
-        contract(T3ij, S, false, -qq, 3 * i);
-        contract(T3ij, self[j], false, 0.5 * qq, 3 * i);
-        contract(T3ji, S, true, -qq, 3 * j);
-        contract(T3ji, self[i], false, 0.5 * qq, 3 * j);
-      }
+  for (let i = 0; i < N; i++) {
+    for (let j = i + 1; j < N; j++) {
+      const R = separation(centres[i], centres[j]); // R_j − R_i
+      const T3ij = thirdDerivativeTensor(R);
+      const T3ji = T3ij.map((t) => -t); // T3 is odd in R
+      block(i, j, S); // Σ^{ij}; Σ^{ji} is its transpose
+      const qq = q[i] * q[j];
+      contract(T3ij, S, false, -qq, 3 * i);
+      contract(T3ij, self[j], false, 0.5 * qq, 3 * i);
+      contract(T3ji, S, true, -qq, 3 * j);
+      contract(T3ji, self[i], false, 0.5 * qq, 3 * j);
     }
-    progress?.('covariance', i1 / N);
   }
-  progress?.('covariance', 1);
   return F;
 }
 
