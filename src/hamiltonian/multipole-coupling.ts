@@ -13,6 +13,7 @@
 import Fraction from 'fraction.js';
 import { inverseDistanceTaylor } from './inverse-distance-taylor.js';
 import { type Monomial, degree } from './monomial.js';
+import { binomial } from '../math/combinatorics.js';
 
 /** One term c · M^A_{pA} M^B_{pB} / R^(order+1). */
 export interface CouplingTerm {
@@ -26,11 +27,6 @@ export interface CouplingTerm {
   order: number;
 }
 
-function binomial(n: number, k: number): number {
-  let r = 1;
-  for (let i = 1; i <= k; i++) r = (r * (n - k + i)) / i;
-  return r;
-}
 
 const cache = new Map<number, CouplingTerm[]>();
 

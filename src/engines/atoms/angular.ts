@@ -8,6 +8,7 @@
  */
 import { gaussLegendre } from '../../math/gauss-legendre.js';
 import { type Monomial, monomialKey } from '../../hamiltonian/monomial.js';
+import { factorial } from '../../math/combinatorics.js';
 
 /** Highest l supported by the angular tables. */
 export const ANGULAR_L_MAX = 8;
@@ -28,11 +29,6 @@ function associatedLegendre(x: number, lMax: number): number[][] {
   return P;
 }
 
-function factorial(n: number): number {
-  let f = 1;
-  for (let i = 2; i <= n; i++) f *= i;
-  return f;
-}
 
 /** Index of (l, m) in a flat list: l² + l + m. */
 export const harmonicIndex = (l: number, m: number): number => l * l + l + m;

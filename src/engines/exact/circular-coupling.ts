@@ -10,6 +10,7 @@
 import Fraction from 'fraction.js';
 import { couplingTerms } from '../../hamiltonian/multipole-coupling.js';
 import type { CircularMonomial } from './circular-states.js';
+import { binomial } from '../../math/combinatorics.js';
 
 /** One term c · (ρ+^p ρ−^q z^r)_A (ρ+^p ρ−^q z^r)_B of the order-n coupling (factor qA qB / R^(n+1) kept apart). */
 export interface CircularCouplingTerm {
@@ -20,11 +21,6 @@ export interface CircularCouplingTerm {
   order: number;
 }
 
-function binomial(n: number, k: number): number {
-  let r = 1;
-  for (let i = 1; i <= k; i++) r = (r * (n - k + i)) / i;
-  return r;
-}
 
 /** x^a y^b = (−i)^b Σ coef ρ+^P ρ−^Q; returns the real coefficients (the (−i)^b factor is applied by the caller). */
 function planarExpansion(a: number, b: number): Array<{ coef: Fraction; p: number; q: number }> {

@@ -16,6 +16,7 @@
  */
 import type { DrudeSpecies } from '../../model/drude.js';
 import type { ExactState } from './exact-solver.js';
+import { factorial, binomial } from '../../math/combinatorics.js';
 
 export interface DensityMap {
   centre: 'a' | 'b';
@@ -49,8 +50,6 @@ export function hermiteFunctions(m: number, w: number, P: number, x: ArrayLike<n
   return out;
 }
 
-const factorial = (n: number): number => (n <= 1 ? 1 : n * factorial(n - 1));
-const binomial = (n: number, k: number): number => factorial(n) / (factorial(k) * factorial(n - k));
 
 /** ψ_{n+,n−}(x, y = 0) on the grid, from the Hermite functions φ_p(x) and their values φ_q(0). */
 function circularOnPlane(nPlus: number, nMinus: number, phiX: Float64Array[], phi0: Float64Array): Float64Array {

@@ -18,6 +18,7 @@ import {
 } from '../../model/drude.js';
 import { type Monomial, degree, monomialKey } from '../../hamiltonian/monomial.js';
 import type { IsotropicResponse, TensorResponse } from './response-model.js';
+import { factorial } from '../../math/combinatorics.js';
 
 /** Closed-form isotropic response of an isotropic QDO. */
 export function drudeIsotropicResponse(s: DrudeSpecies): IsotropicResponse {
@@ -32,11 +33,6 @@ export function drudeIsotropicResponse(s: DrudeSpecies): IsotropicResponse {
   };
 }
 
-function factorial(n: number): number {
-  let f = 1;
-  for (let i = 2; i <= n; i++) f *= i;
-  return f;
-}
 
 /** <n|(a + a†)^k|0> for all n (nonzero only for n = k, k−2, …). */
 function hermiteCoefficients(k: number): Array<[number, number]> {

@@ -17,6 +17,7 @@ import { AXIS_MONOMIALS, type Monomial } from '../../hamiltonian/monomial.js';
 import { couplingTerms } from '../../hamiltonian/multipole-coupling.js';
 import { accumulate, mulTerms, reciprocalLinear, termKey, type Term } from './closed-form.js';
 import type { Centre, SymbolTable } from './symbols.js';
+import { factorial } from '../../math/combinatorics.js';
 
 /** Amplitude of one product state: a sum of terms keyed by {@link termKey}. */
 type Amplitude = Map<string, Term>;
@@ -121,7 +122,6 @@ function reducedResolvent(table: SymbolTable, v: SymbolicVector): SymbolicVector
   return out;
 }
 
-const factorial = (k: number): number => (k <= 1 ? 1 : k * factorial(k - 1));
 
 /** <u|v> = Σ_n u_n v_n (n|n), (n|n) = Π n_i!. */
 function dot(u: SymbolicVector, v: SymbolicVector): Map<string, Term> {
