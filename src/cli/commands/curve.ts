@@ -71,9 +71,9 @@ export function registerCurve(program: Command, ctx: CommandContext): void {
     .command('curve')
     .summary('induced dipoles mu_A, mu_B and interaction energy against R (finite-R exact solution)')
     .description(
-      'Solve the pair at a grid of separations (A at the origin, B at +R on z) in a harmonic basis converged in size,\n' +
-        'and list mu_A,z, mu_B,z, their sum and the interaction energy beside the asymptotic forms D7/R^7 and\n' +
-        '−C6/R^6 − C8/R^8. Points the basis cannot resolve are flagged UNTRUSTED with the reason (exit code 3).\n' +
+      'Solve the pair at a grid of separations (A at the origin, B at +R on z) in a harmonic basis converged in size, ' +
+        'and list mu_A,z, mu_B,z, their sum and the interaction energy beside the asymptotic forms D7/R^7 and ' +
+        '−C6/R^6 − C8/R^8. Points the basis cannot resolve are flagged UNTRUSTED with the reason (exit code 3).\n\n' +
         `Each of A, B is ${SPECIES_TOKEN_HELP}.`,
     )
     .argument('<A>', 'species at the origin')

@@ -36,9 +36,9 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
     .command('density')
     .summary('map of the change of each centre’s Drude-particle density at one R (SVG)')
     .description(
-      'Solve the pair at separation R (A at the origin, B at +R on z) and draw, for each centre, the change of its\n' +
-        'Drude-particle density (interacting minus isolated ground state) in the plane containing the axis:\n' +
-        'red where the particle gains density, blue where it loses it. Prints a summary (--json for JSON).\n' +
+      'Solve the pair at separation R (A at the origin, B at +R on z) and draw, for each centre, the change of its ' +
+        'Drude-particle density (interacting minus isolated ground state) in the plane containing the axis: ' +
+        'red where the particle gains density, blue where it loses it. Prints a summary (--json for JSON).\n\n' +
         `Each of A, B is ${SPECIES_TOKEN_HELP}.`,
     )
     .argument('<A>', 'species at the origin')

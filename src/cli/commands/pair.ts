@@ -23,8 +23,8 @@ export function registerPair(program: Command, ctx: CommandContext): void {
     .command('pair')
     .summary('coefficients C6, C8, C10 and dispersion dipoles D7 of one pair, by every route')
     .description(
-      'Compute the dispersion coefficients C6, C8, C10 and the dispersion-induced dipole coefficients D7 of a pair\n' +
-        '(A at the origin, B at +R on z; D7.a = lim R^7 mu_A,z) by independent routes, and show how well they agree.\n' +
+      'Compute the dispersion coefficients C6, C8, C10 and the dispersion-induced dipole coefficients D7 of a pair ' +
+        '(A at the origin, B at +R on z; D7.a = lim R^7 mu_A,z) by independent routes, and show how well they agree.\n\n' +
         `Each of A, B is ${SPECIES_TOKEN_HELP}.`,
     )
     .argument('<A>', 'species at the origin')
