@@ -17,8 +17,8 @@
  * src/math/simd-kernels.ts on a shared WebAssembly memory; from order 500 they run on all cores
  * (src/math/thread-team.ts). The work split does not depend on the number of threads, so neither do the results.
  */
-import { Workspace, type WasmMemory } from './simd-kernels.js';
-import { ThreadTeam, withTeamFor } from './thread-team.js';
+import type { Workspace } from './simd-kernels.js';
+import { withWorkspace, type ThreadTeam } from './thread-team.js';
 
 /** Eigenvalues (ascending) and, when asked for, eigenvectors: vectors[i·n + k] = component i of eigenvector k. */
 export interface SymmetricEigenResult {
@@ -32,7 +32,10 @@ export interface SymmetricEigenOptions {
   vectors?: boolean;
   /** Called with a stage name and the fraction of that stage done (for progress indicators). */
   progress?: (stage: 'tridiagonalise' | 'eigenvectors' | 'back-transform', fraction: number) => void;
-  /** Threads to run on (default: a team sized by src/math/thread-team.ts teamSizeFor(n), closed afterwards). */
+  /**
+   * Threads to run on (default: src/math/thread-team.ts withWorkspace — up to order 300 a kept single-thread team,
+   * else a team of teamSizeFor(n) threads, closed afterwards).
+   */
   team?: ThreadTeam;
 }
 
@@ -40,50 +43,33 @@ export interface SymmetricEigenOptions {
 const CLUSTER_GAP = 1e-5;
 const EPS = 2 ** -52;
 /** Reflectors per WY block. */
-const BLOCK = 32;
-/** Columns of Z per back-transformation unit (W = Uᵀ Z of one block is then 32 KiB). */
+const BLOCK = 64;
+/** Columns of Z per back-transformation unit (W = Uᵀ Z of one block is then 64 KiB). */
 const CHUNK_WIDTH = 128;
 /** Rows of Z per pass of W = Uᵀ Z (a 256 KiB slab, re-read from cache by every pair of W rows). */
 const SLAB = 256;
 /** Eigenvectors per inverse-iteration unit (extended to the end of a cluster of close eigenvalues). */
 const VECTORS_PER_UNIT = 48;
-/** Tiles of the trailing update of the blocked tridiagonalisation (rows × columns). */
-const UPDATE_TILE_ROWS = 64, UPDATE_TILE_COLS = 256;
 /** Row chunks of one tridiagonalisation step; fixed so that the sums, hence the results, do not depend on the team. */
 const PASS_CHUNKS = 4;
-/** Steps (and trailing updates) with fewer trailing rows run on the calling thread alone (not worth sharing). */
+/** Steps with fewer trailing rows run as one chunk on the calling thread (not worth waking the others). */
 const PASS_SPLIT_MIN = 256;
-/** Workspaces up to this order are kept for the next call (many small problems, e.g. 6×6 pair modes). */
-const KEEP_ORDER = 300;
-
-let kept: { team: ThreadTeam; memory?: WasmMemory; busy: boolean } | undefined;
 
 /** Eigen-decomposition of the symmetric n×n matrix `a` (row-major; only its lower triangle is read; not modified). */
 export function symmetricEigen(a: Float64Array, n: number, options: SymmetricEigenOptions = {}): SymmetricEigenResult {
   if (a.length !== n * n) throw new RangeError(`matrix has ${a.length} entries, expected ${n}×${n}`);
   const wantVectors = options.vectors ?? true;
   if (n === 0) return { n, values: new Float64Array(0), ...(wantVectors ? { vectors: new Float64Array(0) } : {}) };
-  const solve = (team: ThreadTeam, reuse?: WasmMemory) => {
-    const ws = new Workspace(eigenWorkspaceSizes(n, team.size, wantVectors), reuse);
-    team.attach(ws);
-    ws.view('A').set(a);
-    return { result: symmetricEigenInWorkspace(team, ws, n, options), memory: ws.memory };
-  };
-  if (!options.team && n <= KEEP_ORDER) {
-    // small problems: one kept single-thread team and memory (no per-call set-up); the vectors are copied out
-    kept ??= { team: new ThreadTeam(1), busy: false };
-    if (!kept.busy) {
-      kept.busy = true;
-      try {
-        const { result, memory } = solve(kept.team, kept.memory);
-        kept.memory = memory;
-        return result.vectors ? { ...result, vectors: result.vectors.slice() } : result;
-      } finally {
-        kept.busy = false;
-      }
-    }
-  }
-  return withTeamFor(n, options.team, (team) => solve(team).result);
+  return withWorkspace(
+    n,
+    (teamSize) => eigenWorkspaceSizes(n, teamSize, wantVectors),
+    (team, ws, kept) => {
+      ws.view('A').set(a);
+      const result = symmetricEigenInWorkspace(team, ws, n, options);
+      return kept && result.vectors ? { ...result, vectors: result.vectors.slice() } : result;
+    },
+    options.team,
+  );
 }
 
 /** The arrays (f64 lengths by name) that {@link symmetricEigenInWorkspace} needs in a workspace. */
@@ -92,12 +78,8 @@ export function eigenWorkspaceSizes(n: number, teamSize: number, vectors = true)
   return {
     A: n * n,
     Z: vectors ? n * n : 0,
-    v: n,
-    q: n,
+    vp: n, wp: n, v: n,
     p: PASS_CHUNKS * n,
-    VW: n * 2 * BLOCK,
-    WVt: 2 * BLOCK * n,
-    t: 2 * BLOCK,
     d: n, e: n, lambda: n,
     units: n + 1,
     T: blocks * BLOCK * BLOCK,
@@ -108,8 +90,9 @@ export function eigenWorkspaceSizes(n: number, teamSize: number, vectors = true)
 
 /**
  * Eigen-decomposition of the symmetric matrix in workspace array `A` (lower triangle read; overwritten by the
- * reflectors), on a team attached to that workspace. The eigenvectors are workspace array `Z` (a view, not a
- * copy): large callers build the matrix and use the vectors in place, without extra n² arrays.
+ * reflectors), on a team attached to a workspace with the arrays of {@link eigenWorkspaceSizes}(n, team.size).
+ * The eigenvectors are workspace array `Z` (a view, not a copy): large callers build the matrix and use the
+ * vectors in place, without extra n² arrays (fresh memory is slow to touch).
  */
 export function symmetricEigenInWorkspace(team: ThreadTeam, ws: Workspace, n: number, options: Omit<SymmetricEigenOptions, 'team'> = {}): SymmetricEigenResult {
   if (n === 0) return { n, values: new Float64Array(0), ...((options.vectors ?? true) ? { vectors: new Float64Array(0) } : {}) };
@@ -122,105 +105,87 @@ export function symmetricEigenInWorkspace(team: ThreadTeam, ws: Workspace, n: nu
 }
 
 /**
- * Householder tridiagonalisation in place (workspace array A), blocked as LAPACK dsytrd/dlatrd: within a panel of
- * BLOCK columns each column is brought up to date from the panel's earlier reflectors (V, W), its reflector v is
- * formed and w = τ A22 v − (τ²/2)(vᵀ A22 v) v uses the panel-start A22 (read-only symmetric product by row chunks)
- * corrected by −V(Wᵀv) − W(Vᵀv); after the panel A22 ← A22 − V Wᵀ − W Vᵀ as one rank-2·BLOCK product on the
- * lower triangle (tiles shared by the team). Same reflectors as the unblocked reduction A22 ← A22 − v wᵀ − w vᵀ
- * per step (Golub–Van Loan §8.3.1). On return d, e hold T (e[k] = T[k+1][k], e[n−1] = 0) and column k of A
- * holds the reflector H_k = I − τ_k u_k u_kᵀ: u_k[i] = A[i][k], with u_k[k+1] = 1 and zeros above (the form the
- * back-transformation reads).
+ * Householder tridiagonalisation in place (workspace array A). On return d, e hold T (e[k] = T[k+1][k],
+ * e[n−1] = 0) and column k of A holds the reflector H_k = I − τ_k u_k u_kᵀ: u_k[i] = A[i][k], with
+ * u_k[k+1] = 1 and zeros above, back to the first row of its WY block (the form the back-transformation reads).
  */
 function tridiagonalise(team: ThreadTeam, ws: Workspace, n: number, progress?: SymmetricEigenOptions['progress']) {
-  const A = ws.view('A'), v = ws.view('v'), pChunks = ws.view('p'), q = ws.view('q'), VW = ws.view('VW'), WVt = ws.view('WVt'), t2 = ws.view('t');
-  const a = ws.at('A'), vw = ws.at('VW'), vAt = ws.at('v'), qAt = ws.at('q'), tAt = ws.at('t');
-  const K = team.kernels;
-  const LD = 2 * BLOCK; // VW[i·LD + r] = V[i][r], VW[i·LD + BLOCK + r] = W[i][r]
+  const A = ws.view('A'), v = ws.view('v'), vp = ws.view('vp'), wp = ws.view('wp'), pChunks = ws.view('p');
   const d = new Float64Array(n), e = new Float64Array(n), tau = new Float64Array(n);
-  const args = [a, n, 0, vAt, ws.at('p'), 0, ...new Array(PASS_CHUNKS + 1).fill(0)];
+  const p = new Float64Array(n);
+  vp.fill(0);
+  wp.fill(0); // pending rank-2 update of the previous step
+  const args = [ws.at('A'), n, 0, ws.at('vp'), ws.at('wp'), ws.at('v'), ws.at('p'), 0, ...new Array(PASS_CHUNKS + 1).fill(0)];
   const every = Math.max(1, Math.floor(n / 50));
-  for (let k0 = 0; k0 < n - 2; k0 += BLOCK) {
-    const width = Math.min(BLOCK, n - 2 - k0);
-    VW.fill(0, k0 * LD);
-    for (let j = 0; j < width; j++) {
-      const k = k0 + j;
-      const col = a + (k * n + k) * 8; // A[k][k], column stride n·8
-      if (j > 0) {
-        // column k (rows k … n−1) −= V W[k]ᵀ + W V[k]ᵀ over the panel's earlier columns
-        K.gemm(col, n * 8, vw + k * LD * 8, LD * 8, 8, vw + (k * LD + BLOCK) * 8, 8, n - k, 1, j, -1);
-        K.gemm(col, n * 8, vw + (k * LD + BLOCK) * 8, LD * 8, 8, vw + k * LD * 8, 8, n - k, 1, j, -1);
-      }
-      d[k] = A[k * n + k];
-      let sigma = 0;
-      for (let i = k + 2; i < n; i++) sigma += A[i * n + k] * A[i * n + k];
-      const x0 = A[(k + 1) * n + k];
-      if (sigma === 0) {
-        e[k] = x0; // already tridiagonal here: H_k = I (τ = 0), V and W columns stay zero
-        continue;
-      }
+  progress?.('tridiagonalise', 0);
+  for (let k = 0; k < n - 2; k++) {
+    // bring column k (rows ≥ k) up to date with the pending update
+    for (let i = k; i < n; i++) A[i * n + k] -= vp[i] * wp[k] + wp[i] * vp[k];
+    d[k] = A[k * n + k];
+    let sigma = 0;
+    for (let i = k + 2; i < n; i++) sigma += A[i * n + k] * A[i * n + k];
+    const x0 = A[(k + 1) * n + k];
+    v.fill(0);
+    let t = 0;
+    if (sigma === 0) {
+      e[k] = x0;
+    } else {
       const mu = Math.sqrt(x0 * x0 + sigma);
       const alpha = x0 <= 0 ? mu : -mu; // H x = alpha e1, sign chosen against cancellation
       const v0 = x0 - alpha;
-      const t = -v0 / alpha;
+      t = -v0 / alpha;
       e[k] = alpha;
-      tau[k] = t;
-      v.fill(0, 0, k + 1);
       v[k + 1] = 1;
       for (let i = k + 2; i < n; i++) {
         v[i] = A[i * n + k] / v0;
         A[i * n + k] = v[i];
       }
-      for (let i = k + 1; i < n; i++) VW[i * LD + j] = v[i];
-      // p = A22 v from the panel-start lower triangle, by row chunks of about equal area (row i has i − k entries)
-      const rows = n - k - 1;
-      const chunks = rows >= PASS_SPLIT_MIN ? PASS_CHUNKS : 1;
-      args[2] = k;
-      args[5] = chunks;
-      for (let c = 0; c <= chunks; c++) args[6 + c] = k + 1 + Math.round(rows * Math.sqrt(c / chunks));
-      team.run('symmetricProductChunks', args, { local: chunks === 1 });
-      q.fill(0, k + 1);
-      for (let c = 0; c < chunks; c++) for (let i = k + 1; i < n; i++) q[i] += pChunks[c * n + i];
-      if (j > 0) {
-        // p −= V (Wᵀ v) + W (Vᵀ v) over the panel's earlier columns (rows k+1 … n−1)
-        const below = vw + (k + 1) * LD * 8;
-        t2.fill(0);
-        K.gemm(tAt, 8, below + BLOCK * 8, 8, LD * 8, vAt + (k + 1) * 8, 8, j, 1, rows, 1);
-        K.gemm(tAt + BLOCK * 8, 8, below, 8, LD * 8, vAt + (k + 1) * 8, 8, j, 1, rows, 1);
-        K.gemm(qAt + (k + 1) * 8, 8, below, LD * 8, 8, tAt, 8, rows, 1, j, -1);
-        K.gemm(qAt + (k + 1) * 8, 8, below + BLOCK * 8, LD * 8, 8, tAt + BLOCK * 8, 8, rows, 1, j, -1);
-      }
-      // w = τ p − (τ²/2)(pᵀv) v
-      let pv = 0;
-      for (let i = k + 1; i < n; i++) pv += q[i] * v[i];
-      const c = 0.5 * t * t * pv;
-      for (let i = k + 1; i < n; i++) VW[i * LD + BLOCK + j] = t * q[i] - c * v[i];
-      if (progress && k % every === 0) progress('tridiagonalise', k / n);
     }
-    // A22 ← A22 − V Wᵀ − W Vᵀ for rows and columns ≥ kEnd: A operand [V W], B operand [Wᵀ; Vᵀ]
-    const kEnd = k0 + width;
-    for (let r = 0; r < BLOCK; r++) {
-      const wRow = r * n, vRow = (BLOCK + r) * n;
-      for (let i = kEnd; i < n; i++) {
-        WVt[wRow + i] = VW[i * LD + BLOCK + r];
-        WVt[vRow + i] = VW[i * LD + r];
-      }
+    tau[k] = t;
+    // fused pass over the trailing lower triangle: apply the pending update, accumulate p = A22 v, by row chunks
+    // of about equal area (rows k+1 … n−1; row i has i − k entries)
+    const rows = n - k - 1;
+    const chunks = rows >= PASS_SPLIT_MIN ? PASS_CHUNKS : 1;
+    args[2] = k;
+    args[7] = chunks;
+    for (let c = 0; c <= chunks; c++) args[8 + c] = k + 1 + Math.round(rows * Math.sqrt(c / chunks));
+    team.run('tridiagonalChunks', args, { local: chunks === 1 });
+    p.fill(0);
+    for (let c = 0; c < chunks; c++) for (let i = k + 1; i < n; i++) p[i] += pChunks[c * n + i];
+    // w = τ p − (τ²/2)(pᵀv) v becomes the pending update A22 ← A22 − v wᵀ − w vᵀ
+    let pv = 0;
+    for (let i = k + 1; i < n; i++) pv += p[i] * v[i];
+    const c = 0.5 * t * t * pv;
+    vp.fill(0, 0, k + 1);
+    wp.fill(0, 0, k + 1);
+    for (let i = k + 1; i < n; i++) {
+      vp[i] = v[i];
+      wp[i] = t * p[i] - c * v[i];
     }
-    team.run('lowerTiles', [a + (kEnd * n + kEnd) * 8, n * 8, vw + kEnd * LD * 8, LD * 8, 8, ws.at('WVt') + kEnd * 8, n * 8, n - kEnd, LD, -1, UPDATE_TILE_ROWS, UPDATE_TILE_COLS, LD, 0], {
-      local: n - kEnd < PASS_SPLIT_MIN,
-    });
+    if (progress && k % every === 0) progress('tridiagonalise', k / n);
   }
+  // the last 2×2 block
+  for (let i = Math.max(0, n - 2); i < n; i++)
+    for (let j = Math.max(0, n - 2); j <= i; j++) A[i * n + j] -= vp[i] * wp[j] + wp[i] * vp[j];
   if (n >= 2) {
     d[n - 2] = A[(n - 2) * n + n - 2];
     e[n - 2] = A[(n - 1) * n + n - 2];
   }
   d[n - 1] = A[(n - 1) * n + n - 1];
-  // reflector columns: unit at row k+1, zeros on and above the diagonal
+  // reflector columns: unit at row k+1, zeros on and above the diagonal from the first row of the WY block
+  // (k0 + 1 for the block starting at k0), which is all the back-transformation reads
   for (let k = 0; k < n - 2; k++) {
-    for (let i = 0; i <= k; i++) A[i * n + k] = 0;
+    for (let i = k - (k % BLOCK) + 1; i <= k; i++) A[i * n + k] = 0;
     A[(k + 1) * n + k] = 1;
   }
   progress?.('tridiagonalise', 1);
   return { d, e, tau };
+}
+
+/** √(a² + b²): the plain formula where a² + b² can neither overflow nor underflow (Math.hypot is several times slower). */
+function hypot(a: number, b: number): number {
+  const s = a * a + b * b;
+  return s > 1e-290 && s < 1e290 ? Math.sqrt(s) : Math.hypot(a, b);
 }
 
 /** Eigenvalues of the tridiagonal (d, e), ascending, by implicit QL (EISPACK tql2 / JAMA, without vectors). */
@@ -239,7 +204,7 @@ export function tridiagonalEigenvalues(d0: Float64Array, e0: Float64Array): Floa
         if (++iter > 60) throw new Error('tridiagonal QL did not converge');
         let g = d[l];
         let p = (d[l + 1] - g) / (2 * e[l]);
-        let r = Math.hypot(p, 1);
+        let r = hypot(p, 1);
         if (p < 0) r = -r;
         d[l] = e[l] / (p + r);
         d[l + 1] = e[l] * (p + r);
@@ -256,7 +221,7 @@ export function tridiagonalEigenvalues(d0: Float64Array, e0: Float64Array): Floa
           s2 = s;
           g = c * e[i];
           h = c * p;
-          r = Math.hypot(p, e[i]);
+          r = hypot(p, e[i]);
           e[i + 1] = s * r;
           s = e[i] / r;
           c = p / r;
@@ -281,6 +246,7 @@ export function tridiagonalEigenvalues(d0: Float64Array, e0: Float64Array): Floa
  */
 function tridiagonalEigenvectors(team: ThreadTeam, ws: Workspace, d: Float64Array, e: Float64Array, values: Float64Array, progress?: SymmetricEigenOptions['progress']): void {
   const n = d.length;
+  progress?.('eigenvectors', 0);
   let norm = 0;
   for (let i = 0; i < n; i++) norm = Math.max(norm, Math.abs(d[i]) + Math.abs(e[i]) + (i > 0 ? Math.abs(e[i - 1]) : 0));
   if (norm === 0) norm = 1;
@@ -307,6 +273,7 @@ function tridiagonalEigenvectors(team: ThreadTeam, ws: Workspace, d: Float64Arra
  */
 function applyReflectors(team: ThreadTeam, ws: Workspace, tau: Float64Array, n: number, progress?: SymmetricEigenOptions['progress']): void {
   const count = n - 2;
+  progress?.('back-transform', 0);
   if (count <= 0) return;
   const blocks = Math.ceil(count / BLOCK);
   const a = ws.at('A'), Tall = ws.view('T'), G = ws.view('G'), g = ws.at('G');

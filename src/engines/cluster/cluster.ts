@@ -25,11 +25,10 @@ import type { Vec3 } from '../../model/types.js';
 import { InputError } from '../../model/errors.js';
 import { eigenWorkspaceSizes, symmetricEigen, symmetricEigenInWorkspace } from '../../math/symmetric-eigen.js';
 import { gramInWorkspace } from '../../math/gram-matrix.js';
-import { Workspace } from '../../math/simd-kernels.js';
-import { teamSizeFor, withThreadTeam } from '../../math/thread-team.js';
+import { withWorkspace } from '../../math/thread-team.js';
 import { integrateSemiInfinite } from '../../math/semi-infinite-quadrature.js';
 import { coupledPairZeroPointShift } from '../force-balance/pair-force-balance.js';
-import { dipoleCouplingBlock, thirdDerivativeTensor } from './dipole-tensors.js';
+import { dipoleCouplingBlock } from './dipole-tensors.js';
 
 /** One centre of a cluster. */
 export interface ClusterCentre {
@@ -116,19 +115,23 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
     if (progress && i % 50 === 0) progress('pairs', i / N);
   }
 
-  // the two O(n³) steps share one team of threads and one workspace (src/math/thread-team.ts): the matrix D, then
-  // the reflectors and the columns of Yᵀ in array A, the normal modes V in Z, the covariance in sigma
-  const { lambda, V, omega, manyBody, F } = withThreadTeam(teamSizeFor(n), (team) => {
-    const ws = new Workspace({ ...eigenWorkspaceSizes(n, team.size), sigma: n * n });
-    team.attach(ws);
-    // D = M^-½ (K + C) M^-½, lower triangle (the eigensolver reads no more; the fresh workspace is zero)
+  // the O(n³) steps share one team of threads (src/math/thread-team.ts) and one workspace of two n×n arrays:
+  // A holds D, then the reflectors, then Yᵀ; Z holds the normal modes V, then the covariance Σ
+  const { lambda, omega, manyBody, fw, x } = withWorkspace(n, (teamSize) => eigenWorkspaceSizes(n, teamSize), (team, ws) => {
+    // D = M^-½ (K + C) M^-½, lower triangle (the eigensolver reads no more); the coupling block
+    // f·(R² δ − 3 R R)/R^5 of dipoleCouplingBlock (dipole-tensors.ts) is written in place: half a million small
+    // arrays would cost more than the rest of this loop, and the garbage collector runs alongside the main
+    // thread once the large workspace exists
     const D = ws.view('A');
     for (let i = 0; i < N; i++) {
-      for (let a = 0; a < 3; a++) D[(3 * i + a) * n + 3 * i + a] = w[3 * i + a] ** 2;
+      for (let a = 0; a < 3; a++) for (let b = 0; b <= a; b++) D[(3 * i + a) * n + 3 * i + b] = a === b ? w[3 * i + a] ** 2 : 0;
+      const Pi = centres[i].position;
       for (let j = 0; j < i; j++) {
-        const blk = dipoleCouplingBlock(separation(centres[i], centres[j]));
-        const f = (q[i] * q[j]) / Math.sqrt(m[i] * m[j]);
-        for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) D[(3 * i + a) * n + 3 * j + b] = f * blk[3 * a + b];
+        const Pj = centres[j].position;
+        const R = [Pj[0] - Pi[0], Pj[1] - Pi[1], Pj[2] - Pi[2]] as const;
+        const r2 = R[0] * R[0] + R[1] * R[1] + R[2] * R[2];
+        const f = (q[i] * q[j]) / Math.sqrt(m[i] * m[j]) / (r2 * r2 * Math.sqrt(r2));
+        for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) D[(3 * i + a) * n + 3 * j + b] = f * ((a === b ? r2 : 0) - 3 * R[a] * R[b]);
       }
     }
     const eig = symmetricEigenInWorkspace(team, ws, n, { progress: progress && ((stage, f) => progress(stage, f)) });
@@ -138,7 +141,9 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
     }
     const omega = lambda.map(Math.sqrt);
     const manyBody = zeroPointShift(lambda, V, w, n);
+    const fw = polarisabilityWeights(V, q, m, N, n);
     // Y = M^-½ V (2Ω)^-½, so that the covariance is Σ = Y Yᵀ, the Gram matrix of the columns of Yᵀ
+    progress?.('covariance', 0);
     const Yt = ws.view('A');
     const invRoot = omega.map((x) => 1 / Math.sqrt(x));
     for (let r0 = 0; r0 < n; r0 += 32)
@@ -147,14 +152,14 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
           const s = 1 / Math.sqrt(2 * m[Math.floor(r / 3)]);
           for (let k = k0; k < Math.min(k0 + 32, n); k++) Yt[k * n + r] = V[r * n + k] * s * invRoot[k];
         }
-    const sigma = gramInWorkspace(team, ws, 'A', 'sigma', n, n, progress && ((f) => progress('covariance', 0.9 * f)));
+    // Σ into Z (V is done with), lower triangle only
+    const sigma = gramInWorkspace(team, ws, 'A', 'Z', n, n, { progress: progress && ((f) => progress('covariance', 0.9 * f)), lowerOnly: true });
     const F = forceBalanceSource(centres, q, sigma, N, n);
     progress?.('covariance', 1);
-    return { lambda, V, omega, manyBody, F };
+    return { lambda, omega, manyBody, fw, x: applyInverse(Yt, omega, F, n) };
   });
 
-  // <x> = M^-½ V Ω^-2 Vᵀ M^-½ F, mu_i = −q_i <r_i>
-  const x = applyInverse(V, lambda, m, F, n);
+  // mu_i = −q_i <r_i>
   const dipoles: Vec3[] = [];
   const total: Vec3 = [0, 0, 0];
   for (let i = 0; i < N; i++) {
@@ -164,22 +169,6 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
   }
 
   // screened polarisabilities: α_i(iu) = Σ_n f_in/(ω_n² + u²)
-  const P = new Float64Array(3 * n); // P[a·n + k] = Σ_j (q_j/√m_j) V_ja,k
-  for (let j = 0; j < N; j++) {
-    const g = q[j] / Math.sqrt(m[j]);
-    for (let a = 0; a < 3; a++) {
-      const row = (3 * j + a) * n;
-      for (let k = 0; k < n; k++) P[a * n + k] += g * V[row + k];
-    }
-  }
-  const fw = new Float64Array(N * n);
-  for (let i = 0; i < N; i++) {
-    const g = q[i] / (3 * Math.sqrt(m[i]));
-    for (let a = 0; a < 3; a++) {
-      const row = (3 * i + a) * n;
-      for (let k = 0; k < n; k++) fw[i * n + k] += g * V[row + k] * P[a * n + k];
-    }
-  }
   const alphaAt = (u: number, out: Float64Array) => {
     const u2 = u * u;
     const inv = new Float64Array(n);
@@ -299,59 +288,92 @@ function zeroPointShift(lambda: Float64Array, V: Float64Array, w: ArrayLike<numb
   return -0.25 * s;
 }
 
-/** F_i = −<∂V_dq/∂r_i> over the coupled Gaussian (see the module comment), from the covariance Σ (n×n, full). */
+/**
+ * F_i = −<∂V_dq/∂r_i> over the coupled Gaussian (see the module comment), from the lower triangle of the
+ * covariance Σ (n×n). The contractions use the closed form of T3 (dipole-tensors.ts) against a 3×3 block X
+ * (derived here):
+ *   Σ_bc T3_abc(R) X_bc = [3 (R_a tr X + (X R)_a + (Xᵀ R)_a) − 15 R_a (Rᵀ X R)/R²] / R^5,
+ * which is the same for X and Xᵀ (T3 is symmetric in its indices; so Σ^{ij} can be read as its transpose Σ^{ji}
+ * from the lower triangle) and odd in R, so per pair
+ *   F_i += q_i q_j [−T3(R):Σ^{ij} + ½ T3(R):Σ^{jj}],  F_j += q_i q_j [T3(R):Σ^{ij} − ½ T3(R):Σ^{ii}],  R = R_j − R_i.
+ */
 function forceBalanceSource(centres: readonly ClusterCentre[], q: readonly number[], sigma: Float64Array, N: number, n: number): Float64Array {
-  /** the 3×3 block Σ^{ij} (row-major) */
-  const block = (i: number, j: number, out: Float64Array) => {
-    for (let b = 0; b < 3; b++) for (let c = 0; c < 3; c++) out[3 * b + c] = sigma[(3 * i + b) * n + 3 * j + c];
-    return out;
-  };
-  const self: Float64Array[] = [];
-  for (let j = 0; j < N; j++) self.push(block(j, j, new Float64Array(9)));
   const F = new Float64Array(n);
-  const S = new Float64Array(9);
-  // contraction Σ_bc T3_abc X_bc for a 3×3 X (row-major), into F_i,a with a factor
-  const contract = (T3: Float64Array, X: Float64Array, transpose: boolean, factor: number, into: number) => {
-    for (let a = 0; a < 3; a++) {
-      let s = 0;
-      for (let b = 0; b < 3; b++) for (let c = 0; c < 3; c++) s += T3[9 * a + 3 * b + c] * (transpose ? X[3 * c + b] : X[3 * b + c]);
-      F[into + a] += factor * s;
-    }
+  const X = new Float64Array(9);
+  const c = new Float64Array(3);
+  /** c ← T3(R):X for the 3×3 block of Σ at rows 3i…, columns 3j… (i ≥ j; a diagonal block from its lower triangle) */
+  const contract = (R0: number, R1: number, R2: number, i: number, j: number) => {
+    for (let b = 0; b < 3; b++)
+      for (let e = 0; e < 3; e++) X[3 * b + e] = i > j || b >= e ? sigma[(3 * i + b) * n + 3 * j + e] : sigma[(3 * j + e) * n + 3 * i + b];
+    const r2 = R0 * R0 + R1 * R1 + R2 * R2;
+    const r5 = r2 * r2 * Math.sqrt(r2);
+    const tr = X[0] + X[4] + X[8];
+    const XR0 = X[0] * R0 + X[1] * R1 + X[2] * R2, XR1 = X[3] * R0 + X[4] * R1 + X[5] * R2, XR2 = X[6] * R0 + X[7] * R1 + X[8] * R2;
+    const XtR0 = X[0] * R0 + X[3] * R1 + X[6] * R2, XtR1 = X[1] * R0 + X[4] * R1 + X[7] * R2, XtR2 = X[2] * R0 + X[5] * R1 + X[8] * R2;
+    const RXR = (R0 * XR0 + R1 * XR1 + R2 * XR2) / r2;
+    c[0] = (3 * (R0 * tr + XR0 + XtR0) - 15 * R0 * RXR) / r5;
+    c[1] = (3 * (R1 * tr + XR1 + XtR1) - 15 * R1 * RXR) / r5;
+    c[2] = (3 * (R2 * tr + XR2 + XtR2) - 15 * R2 * RXR) / r5;
+    return c;
   };
   for (let i = 0; i < N; i++) {
+    const Pi = centres[i].position;
     for (let j = i + 1; j < N; j++) {
-      const R = separation(centres[i], centres[j]); // R_j − R_i
-      const T3ij = thirdDerivativeTensor(R);
-      const T3ji = T3ij.map((t) => -t); // T3 is odd in R
-      block(i, j, S); // Σ^{ij}; Σ^{ji} is its transpose
+      const Pj = centres[j].position;
+      const R0 = Pj[0] - Pi[0], R1 = Pj[1] - Pi[1], R2 = Pj[2] - Pi[2];
       const qq = q[i] * q[j];
-      contract(T3ij, S, false, -qq, 3 * i);
-      contract(T3ij, self[j], false, 0.5 * qq, 3 * i);
-      contract(T3ji, S, true, -qq, 3 * j);
-      contract(T3ji, self[i], false, 0.5 * qq, 3 * j);
+      contract(R0, R1, R2, j, i); // Σ^{ji} = (Σ^{ij})ᵀ, same contraction
+      for (let a = 0; a < 3; a++) {
+        F[3 * i + a] -= qq * c[a];
+        F[3 * j + a] += qq * c[a];
+      }
+      contract(R0, R1, R2, j, j);
+      for (let a = 0; a < 3; a++) F[3 * i + a] += 0.5 * qq * c[a];
+      contract(R0, R1, R2, i, i);
+      for (let a = 0; a < 3; a++) F[3 * j + a] -= 0.5 * qq * c[a];
     }
   }
   return F;
 }
 
-/** x = M^-½ V Λ^-1 Vᵀ M^-½ F, i.e. A^-1 F. */
-function applyInverse(V: Float64Array, lambda: Float64Array, m: readonly number[], F: Float64Array, n: number): Float64Array {
-  const t = new Float64Array(n);
-  for (let r = 0; r < n; r++) {
-    const fr = F[r] / Math.sqrt(m[Math.floor(r / 3)]);
-    if (fr === 0) continue;
-    const row = r * n;
-    for (let k = 0; k < n; k++) t[k] += V[row + k] * fr;
-  }
-  for (let k = 0; k < n; k++) t[k] /= lambda[k];
+/**
+ * <x> = A^-1 F = M^-½ V Ω^-2 Vᵀ M^-½ F = 2 Y Ω^-1 Yᵀ F with Y = M^-½ V (2Ω)^-½ (derived here), from Yᵀ (row k
+ * of Yt is column k of Y).
+ */
+function applyInverse(Yt: Float64Array, omega: Float64Array, F: Float64Array, n: number): Float64Array {
   const x = new Float64Array(n);
-  for (let r = 0; r < n; r++) {
-    let s = 0;
-    const row = r * n;
-    for (let k = 0; k < n; k++) s += V[row + k] * t[k];
-    x[r] = s / Math.sqrt(m[Math.floor(r / 3)]);
+  for (let k = 0; k < n; k++) {
+    const row = k * n;
+    let t = 0;
+    for (let r = 0; r < n; r++) t += Yt[row + r] * F[r];
+    t *= 2 / omega[k];
+    for (let r = 0; r < n; r++) x[r] += Yt[row + r] * t;
   }
   return x;
+}
+
+/**
+ * Weights of the screened polarisabilities α_i(iu) = Σ_k fw[i·n + k]/(ω_k² + u²) (the field on all centres, the
+ * dipole of centre i, 1/3 of the trace): fw_ik = (q_i/(3√m_i)) Σ_a V_ia,k P_a,k with P_a,k = Σ_j (q_j/√m_j) V_ja,k.
+ */
+function polarisabilityWeights(V: Float64Array, q: readonly number[], m: readonly number[], N: number, n: number): Float64Array {
+  const P = new Float64Array(3 * n);
+  for (let j = 0; j < N; j++) {
+    const g = q[j] / Math.sqrt(m[j]);
+    for (let a = 0; a < 3; a++) {
+      const row = (3 * j + a) * n;
+      for (let k = 0; k < n; k++) P[a * n + k] += g * V[row + k];
+    }
+  }
+  const fw = new Float64Array(N * n);
+  for (let i = 0; i < N; i++) {
+    const g = q[i] / (3 * Math.sqrt(m[i]));
+    for (let a = 0; a < 3; a++) {
+      const row = (3 * i + a) * n;
+      for (let k = 0; k < n; k++) fw[i * n + k] += g * V[row + k] * P[a * n + k];
+    }
+  }
+  return fw;
 }
 
 /** Static polarisability of a free QDO, 1/3 of the trace of q²/(m w_a²), a0³. */
