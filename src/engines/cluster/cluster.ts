@@ -28,7 +28,7 @@ import { gramInWorkspace } from '../../math/gram-matrix.js';
 import { withWorkspace } from '../../math/thread-team.js';
 import { integrateSemiInfinite } from '../../math/semi-infinite-quadrature.js';
 import { coupledPairZeroPointShift } from '../force-balance/pair-force-balance.js';
-import { dipoleCouplingBlock } from './dipole-tensors.js';
+import { dipoleCouplingBlock, writeDipoleCouplingBlock } from './dipole-tensors.js';
 
 /** One centre of a cluster. */
 export interface ClusterCentre {
@@ -118,10 +118,9 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
   // the O(n³) steps share one team of threads (src/math/thread-team.ts) and one workspace of two n×n arrays:
   // A holds D, then the reflectors, then Yᵀ; Z holds the normal modes V, then the covariance Σ
   const { lambda, omega, manyBody, fw, x } = withWorkspace(n, (teamSize) => eigenWorkspaceSizes(n, teamSize), (team, ws) => {
-    // D = M^-½ (K + C) M^-½, lower triangle (the eigensolver reads no more); the coupling block
-    // f·(R² δ − 3 R R)/R^5 of dipoleCouplingBlock (dipole-tensors.ts) is written in place: half a million small
-    // arrays would cost more than the rest of this loop, and the garbage collector runs alongside the main
-    // thread once the large workspace exists
+    // D = M^-½ (K + C) M^-½, lower triangle (the eigensolver reads no more); the coupling blocks are written in
+    // place: half a million small arrays would cost more than the rest of this loop, and the garbage collector
+    // runs alongside the main thread once the large workspace exists
     const D = ws.view('A');
     for (let i = 0; i < N; i++) {
       for (let a = 0; a < 3; a++) for (let b = 0; b <= a; b++) D[(3 * i + a) * n + 3 * i + b] = a === b ? w[3 * i + a] ** 2 : 0;
@@ -129,9 +128,7 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
       for (let j = 0; j < i; j++) {
         const Pj = centres[j].position;
         const R = [Pj[0] - Pi[0], Pj[1] - Pi[1], Pj[2] - Pi[2]] as const;
-        const r2 = R[0] * R[0] + R[1] * R[1] + R[2] * R[2];
-        const f = (q[i] * q[j]) / Math.sqrt(m[i] * m[j]) / (r2 * r2 * Math.sqrt(r2));
-        for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) D[(3 * i + a) * n + 3 * j + b] = f * ((a === b ? r2 : 0) - 3 * R[a] * R[b]);
+        writeDipoleCouplingBlock(R, (q[i] * q[j]) / Math.sqrt(m[i] * m[j]), D, 3 * i * n + 3 * j, n);
       }
     }
     const eig = symmetricEigenInWorkspace(team, ws, n, { progress: progress && ((stage, f) => progress(stage, f)) });

@@ -12,12 +12,20 @@
 import type { Vec3 } from '../../model/types.js';
 
 /** The dipole–dipole coupling block −T2(R) = (R² δ_ab − 3 R_a R_b)/R^5 (row-major 3×3), so V_dd = q_i q_j r_iᵀ K r_j. */
-export function dipoleCouplingBlock(R: Vec3): Float64Array {
-  const r2 = R[0] * R[0] + R[1] * R[1] + R[2] * R[2];
-  const r5 = r2 * r2 * Math.sqrt(r2);
+export function dipoleCouplingBlock(R: Readonly<Vec3>): Float64Array {
   const out = new Float64Array(9);
-  for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) out[3 * a + b] = ((a === b ? r2 : 0) - 3 * R[a] * R[b]) / r5;
+  writeDipoleCouplingBlock(R, 1, out, 0, 3);
   return out;
+}
+
+/**
+ * Write f·(R² δ_ab − 3 R_a R_b)/R^5 into `out` at out[offset + a·stride + b] (a, b = 0…2), in place: a large
+ * matrix is assembled block by block without allocating a 3×3 array per pair.
+ */
+export function writeDipoleCouplingBlock(R: Readonly<Vec3>, f: number, out: Float64Array, offset: number, stride: number): void {
+  const r2 = R[0] * R[0] + R[1] * R[1] + R[2] * R[2];
+  const g = f / (r2 * r2 * Math.sqrt(r2));
+  for (let a = 0; a < 3; a++) for (let b = 0; b < 3; b++) out[offset + a * stride + b] = g * ((a === b ? r2 : 0) - 3 * R[a] * R[b]);
 }
 
 /** T3_abc(R) as a 27-entry array, index 9a + 3b + c. */
