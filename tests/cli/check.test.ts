@@ -85,3 +85,14 @@ describe('dispole check', () => {
     expect(quantity.err).toBe('dispole: error: --for: unknown quantity "E5"; known: C6, C8, C10, D7.a, D7.b, D7.total, mu.a, mu.b, mu.total\n');
   });
 });
+
+describe('a like-pair formula checked as an unlike pair', () => {
+  test('London C6 = (3/4) α² w written with A\'s names only differs, and the hint points to --identical', async () => {
+    const io = memoryIO();
+    // London, Z. Phys. Chem. B 11, 222 (1930): the like-pair C6 of two oscillators
+    expect(await runCli(['check', '3/4*alphaa^2*wa', '--for', 'C6'], io)).toBe(1);
+    expect(io.out).toMatch(/uses the parameters of one species only: for a like pair, check with --identical/);
+    const io2 = memoryIO();
+    expect(await runCli(['check', '3/4*alpha^2*w', '--for', 'C6', '--identical'], io2)).toBe(0);
+  });
+});

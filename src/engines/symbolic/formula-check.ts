@@ -252,7 +252,14 @@ function explainDifference(
   }
   const depends = params.filter((_, j) => Number.isNaN(powers[j]) || powers[j] !== 0).map((i) => table.symbols[i].name);
   const first = r.slice(0, 3).map((x) => x.toPrecision(6)).join(', ');
-  return `yours / engine is neither a constant nor a power law; it changes with ${depends.join(', ') || 'the parameters'} (ratios at the first points: ${first})`;
+  return `yours / engine is neither a constant nor a power law; it changes with ${depends.join(', ') || 'the parameters'} (ratios at the first points: ${first})${oneCentreNote(table, formula)}`;
+}
+
+/** A like-pair formula checked as an unlike pair uses one centre's names only: say how to check it as intended. */
+function oneCentreNote(table: SymbolTable, formula: Formula): string {
+  if (table.layout.identical) return '';
+  const centres = new Set(table.symbols.filter((s) => s.centre && formula.names.has(s.name)).map((s) => s.centre));
+  return centres.size === 1 ? `; your formula uses the parameters of one species only: for a like pair, check with --identical (names q, m, w, alpha)` : '';
 }
 
 /** True when the formula uses some alpha and no mass (isotropic layouts only). */
