@@ -87,7 +87,9 @@ export function pairToText(p: PairResult, options: { digits?: number; units?: Un
     }
   }
   lines.push('');
-  lines.push(p.trusted ? `All routes agree (largest relative spread ${spreadText(p.spread.max)}).` : 'UNTRUSTED: see the warnings below.');
+  if (!p.trusted) lines.push('UNTRUSTED: see the warnings below.');
+  else if (p.routes.length > 1) lines.push(`All routes agree (largest relative spread ${spreadText(p.spread.max)}).`);
+  else lines.push(`Only the ${p.routes[0].name} route could run: no cross-check.`);
   for (const w of p.warnings) lines.push(`warning: ${w}`);
   return lines.join('\n') + '\n';
 }

@@ -54,7 +54,7 @@ export interface ClusterCentreResult {
   species: string;
   /** bohr */
   position: Vec3;
-  /** Dispersion-induced dipole, e·a0. */
+  /** Dispersion-induced dipole, e·a0 (components below 1e-12 of the largest centre dipole reported as 0). */
   dipole: Vec3;
   /** Screened static polarisability (1/3 of the trace), a0³. */
   alpha: number;
@@ -69,7 +69,7 @@ export interface ClusterCentreResult {
 export interface ClusterResult {
   /** Hartree: zero-point energy change with all couplings, its pairwise-additive sum, and their difference. */
   energy: { manyBody: number; pairwise: number; nonAdditive: number };
-  /** Total dispersion-induced dipole, e·a0. */
+  /** Total dispersion-induced dipole, e·a0 (components below 1e-12 of the largest centre dipole reported as 0). */
   dipole: Vec3;
   /** Screened polarisability of the whole cluster (Σ_i alpha_i), a0³. */
   alpha: number;
@@ -164,6 +164,9 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
     dipoles.push(mu);
     for (let a = 0; a < 3; a++) total[a] += mu[a];
   }
+  // components below 1e-12 of the largest centre dipole are rounding residue of cancelling sums: report them as 0
+  const resolution = 1e-12 * Math.max(0, ...dipoles.map((d) => Math.hypot(d[0], d[1], d[2])));
+  for (const v of [...dipoles, total]) for (let a = 0; a < 3; a++) if (Math.abs(v[a]) <= resolution) v[a] = 0;
 
   // screened polarisabilities: α_i(iu) = Σ_n f_in/(ω_n² + u²)
   const alphaAt = (u: number, out: Float64Array) => {
