@@ -87,6 +87,13 @@ export function pairToText(p: PairResult, options: { digits?: number; units?: Un
     }
   }
   lines.push('');
+  if (lines[lines.length - 1] !== '') lines.push('');
+  lines.push('Route notes:');
+  const byNote = new Map<string, string[]>(); // a note shared by several routes is printed once
+  for (const r of p.routes) for (const note of r.notes) byNote.set(note, [...(byNote.get(note) ?? []), r.name]);
+  for (const [note, names] of byNote) lines.push(`  ${names.join(', ')}: ${note}`);
+  for (const sk of p.skipped) lines.push(`  ${sk.name}: skipped (${sk.reason})`);
+  lines.push('');
   if (!p.trusted) lines.push('UNTRUSTED: see the warnings below.');
   else if (p.routes.length > 1) lines.push(`All routes agree (largest relative spread ${spreadText(p.spread.max)}).`);
   else lines.push(`Only the ${p.routes[0].name} route could run: no cross-check.`);

@@ -108,3 +108,18 @@ describe('the built command', () => {
     expect(VERSION).toBe(pkg.version);
   });
 });
+
+describe('route notes in the human report', () => {
+  test('each note once, with the routes that made it; skipped routes give their reason', async () => {
+    const { out } = await run(['pair', 'H', 'H']);
+    expect(out).toMatch(/^Route notes:$/m);
+    expect(out).toMatch(/^ {2}perturbation, response: H: basis check, like pair with 7 vs 10 functions/m);
+    expect(out).toMatch(/^ {2}force-balance: skipped \(H is not a quantum Drude oscillator/m);
+    expect(out).not.toMatch(/harmonic truncation/);
+  });
+  test('a single route says there is no cross-check', async () => {
+    const { code, out } = await run(['pair', 'Quelon', 'Virid', '--routes', 'response']);
+    expect(code).toBe(0);
+    expect(out).toMatch(/Only the response route could run: no cross-check\./);
+  });
+});

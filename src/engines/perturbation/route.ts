@@ -21,9 +21,13 @@ export const perturbationRoute: Route = {
       // a truncation below the exact minimum changes the numbers: flag them
       converged: quanta >= requiredQuanta(power),
       notes: [
-        quanta >= requiredQuanta(power)
-          ? `harmonic truncation for QDOs: ${quanta} quanta per centre (exact from ${requiredQuanta(power)} up)`
-          : `harmonic truncation ${quanta} is below the exact minimum ${requiredQuanta(power)}: numbers untrusted`,
+        ...(A.kind === 'drude' || B.kind === 'drude'
+          ? [
+              quanta >= requiredQuanta(power)
+                ? `harmonic truncation for QDOs: ${quanta} quanta per centre (exact from ${requiredQuanta(power)} up)`
+                : `harmonic truncation ${quanta} is below the exact minimum ${requiredQuanta(power)}: numbers untrusted`,
+            ]
+          : []),
         ...new Set([...speciesNotes(A), ...speciesNotes(B)]),
       ],
     });
