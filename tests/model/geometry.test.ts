@@ -1,3 +1,8 @@
+/**
+ * XYZ geometry parsing. The format (count line, comment line, `label x y z` in ångström) is the open de facto
+ * standard (common practice); the ångström → bohr factor is checked against CODATA 2018
+ * (a0 = 0.529177210903 Å; Tiesinga et al., Rev. Mod. Phys. 93, 025010 (2021)).
+ */
 import { describe, expect, test } from 'vitest';
 import { parseXyz } from '../../src/model/geometry.js';
 import { BOHR_IN_ANGSTROM } from '../../src/model/units.js';
@@ -14,6 +19,7 @@ describe('parseXyz', () => {
     expect(g.comment).toBe('an invented pair');
     expect(g.centres.map((c) => [c.label, c.line])).toEqual([['Quelon', 3], ['Virid', 4]]);
     expectClose(g.centres[1].position[2], 4.5 / BOHR_IN_ANGSTROM, 1e-15);
+    expectClose(g.centres[1].position[2], 4.5 / 0.529177210903, 1e-12); // CODATA 2018
     expect(parseXyz(text, { unit: 'bohr' }).centres[1].position).toEqual([0, 0, 4.5]);
   });
   test('accepts tabs, CRLF, exponents and Fortran D exponents', () => {
