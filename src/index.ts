@@ -73,6 +73,18 @@ export { symbolTable, type PairLayout, type SymbolTable, type SymbolInfo } from 
 export { closedFormsEqual, evaluateClosedForm, evaluateClosedFormNumber, type ClosedForm } from './engines/symbolic/closed-form.js';
 export { checkFormula, type CheckRequest, type CheckResult } from './engines/symbolic/formula-check.js';
 
+// force balance and N oscillators
+export { forceBalanceCoefficients, coupledPairZeroPointShift, type ForceBalanceCoefficients } from './engines/force-balance/pair-force-balance.js';
+export { forceBalanceRoute } from './engines/force-balance/route.js';
+export {
+  computeCluster, pairEnergy, freeAlpha, freeC6,
+  type ClusterCentre, type ClusterOptions, type ClusterResult, type ClusterCentreResult, type ClusterStage,
+} from './engines/cluster/cluster.js';
+export { parseXyz, type Geometry, type GeometryCentre, type XyzOptions } from './model/geometry.js';
+export { clusterToJson, clusterToCsv, clusterToText, type ClusterSource } from './report/cluster-report.js';
+export { symmetricEigen } from './math/symmetric-eigen.js';
+export type { VectorCoefficients } from './engines/route.js';
+
 // report
 export { pairToJson, pairToText, coefficientsToSI } from './report/pair-report.js';
 export { renderTable, TABLE_FORMATS, tableToJson, type TableFormat } from './report/table/index.js';
