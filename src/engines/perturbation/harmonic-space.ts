@@ -34,6 +34,33 @@ function ladderPower(k: number, n: number): Map<number, number> {
   return v;
 }
 
+/**
+ * Π_axis (a + a†)^p_axis |n_x n_y n_z>, truncated at `maxQuanta` total quanta: dimensionless and the same for every
+ * species, so it is computed once per (p, state, truncation) and shared; a species only scales it.
+ */
+const ladderProducts = new Map<number, LocalEntries>();
+function ladderProduct(p: Monomial, i: number, maxQuanta: number): LocalEntries {
+  const key = (monomialKey(p) * 2 ** 20 + i) * BASE + maxQuanta;
+  const hit = ladderProducts.get(key);
+  if (hit) return hit;
+  const n = harmonicQuanta(i);
+  const per = [0, 1, 2].map((axis) => ladderPower(p[axis], n[axis]));
+  const states: number[] = [];
+  const amps: number[] = [];
+  for (const [nx, cx] of per[0])
+    for (const [ny, cy] of per[1])
+      for (const [nz, cz] of per[2]) {
+        if (nx + ny + nz > maxQuanta) continue;
+        const amp = cx * cy * cz;
+        if (amp === 0) continue;
+        states.push(harmonicIndex(nx, ny, nz));
+        amps.push(amp);
+      }
+  const entries = { states, amps };
+  ladderProducts.set(key, entries);
+  return entries;
+}
+
 // Species are immutable plain data, so a space (and its matrix-element cache) is reused for the same object:
 // a table of N species then builds N spaces, not N² .
 const spaces = new WeakMap<DrudeSpecies, Map<number, LocalSpace>>();
@@ -57,21 +84,9 @@ function buildHarmonicSpace(species: DrudeSpecies, maxQuanta: number): LocalSpac
     const key = monomialKey(p) * 2 ** 20 + i;
     const hit = cache.get(key);
     if (hit) return hit;
-    const n = harmonicQuanta(i);
-    const per = [0, 1, 2].map((axis) => ladderPower(p[axis], n[axis]));
+    const dimensionless = ladderProduct(p, i, maxQuanta);
     const scale = -q * s[0] ** p[0] * s[1] ** p[1] * s[2] ** p[2];
-    const states: number[] = [];
-    const amps: number[] = [];
-    for (const [nx, cx] of per[0])
-      for (const [ny, cy] of per[1])
-        for (const [nz, cz] of per[2]) {
-          if (nx + ny + nz > maxQuanta) continue;
-          const amp = scale * cx * cy * cz;
-          if (amp === 0) continue;
-          states.push(harmonicIndex(nx, ny, nz));
-          amps.push(amp);
-        }
-    const entries = { states, amps };
+    const entries = { states: dimensionless.states, amps: dimensionless.amps.map((a) => scale * a) };
     cache.set(key, entries);
     return entries;
   }
