@@ -6,6 +6,7 @@
 import type { DrudeSpecies } from './drude.js';
 import type { HydrogenicSpecies } from './hydrogenic.js';
 import type { OscillatorSpectrumSpecies, ResponseTableSpecies } from './response-data.js';
+import { sig } from './number-text.js';
 
 export type { DrudeSpecies } from './drude.js';
 export type { HydrogenicSpecies } from './hydrogenic.js';
@@ -40,6 +41,4 @@ export function describeSpecies(s: Species): string {
   }
 }
 
-function fmt(x: number): string {
-  return Number(x.toPrecision(10)).toString();
-}
+const fmt = (x: number): string => sig(x, 10);

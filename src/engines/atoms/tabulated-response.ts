@@ -19,6 +19,7 @@
 import type { OscillatorSpectrumSpecies, ResponseTableSpecies } from '../../model/response-data.js';
 import type { IsotropicResponse } from '../response/response-model.js';
 import { aaa, type Barycentric, evaluateBarycentric, floaterHormann, poleFree } from './rational-interpolation.js';
+import { sig } from '../../model/number-text.js';
 
 /** Response of a data species, with what was assumed and how far the data reach. */
 export interface DataResponse extends IsotropicResponse {
@@ -92,7 +93,7 @@ function samplesPositive(b: Barycentric): boolean {
   return true;
 }
 
-const fmt = (x: number) => Number(x.toPrecision(6)).toString();
+const fmt = (x: number): string => sig(x, 6);
 
 const tableCache = new WeakMap<ResponseTableSpecies, DataResponse>();
 

@@ -9,6 +9,7 @@ import type { Route, RouteResult } from '../route.js';
 import { d7 } from '../route.js';
 import { exactAsymptotics } from './exact-asymptotics.js';
 import { axialProblem } from './pair-hamiltonian.js';
+import { sig } from '../../model/number-text.js';
 
 function problem(s: Species): string | null {
   if (s.kind !== 'drude') return axialProblem(s);
@@ -16,7 +17,7 @@ function problem(s: Species): string | null {
   return null;
 }
 
-const fmt = (x: number) => Number(x.toPrecision(4)).toString();
+const fmt = (x: number): string => sig(x, 4);
 
 export const exactRoute: Route = {
   name: 'exact',
