@@ -31,7 +31,14 @@ export const responseRoute: Route = {
       ...(power >= 8 ? { C8: r.C8 } : {}),
       ...(power >= 10 ? { C10: r.C10 } : {}),
       D7: d7(r.D7a, r.D7b),
-      error: power >= 10 ? r.error : { C6: r.error.C6, C8: r.error.C8, D7a: r.error.D7a, D7b: r.error.D7b },
+      // error estimates of exactly the coefficients reported
+      error: {
+        C6: r.error.C6,
+        ...(power >= 8 ? { C8: r.error.C8 } : {}),
+        ...(power >= 10 ? { C10: r.error.C10 } : {}),
+        D7a: r.error.D7a,
+        D7b: r.error.D7b,
+      },
       ...(E5 !== 0 || D4a !== 0 || D4b !== 0 ? { permanent: { E5, D4: d7(D4a, D4b) } } : {}),
       converged: r.converged,
       notes: [`${r.kernel} kernel, ${r.evaluations} frequency points`, ...new Set([...speciesNotes(A), ...speciesNotes(B)])],
