@@ -85,6 +85,28 @@ export { clusterToJson, clusterToCsv, clusterToText, type ClusterSource } from '
 export { symmetricEigen } from './math/symmetric-eigen.js';
 export type { VectorCoefficients } from './engines/route.js';
 
+// an atom in front of a surface
+export { parseSurfaceSpec, parseEpsTable, constantSurface, describeSurface, type SurfaceSpec, type LorentzTerm } from './model/surface-spec.js';
+export { computeSurface, surfaceRoutes, surfaceNormal, type SurfaceResult, type SurfaceOptions, type SurfaceSpread } from './engines/surface/surface.js';
+export type { SurfaceRoute, SurfaceRouteResult, SurfaceRouteOptions } from './engines/surface/surface-route.js';
+export { imageFactor, type ImageFactor } from './engines/surface/image-factor.js';
+export { imageTerms, imagePolynomial, type ImageTerm } from './engines/surface/image-hamiltonian.js';
+export { surfaceExactCurve, type SurfaceExactCurve, type SurfaceExactPoint, type SurfaceExactOptions } from './engines/surface/exact-surface.js';
+export { deriveSurfaceQuantities, SURFACE_QUANTITIES, type SurfaceQuantity } from './engines/symbolic/symbolic-surface.js';
+export { surfaceToJson, surfaceToText, surfaceCoefficientsToSI } from './report/surface-report.js';
+
+// collision-induced absorption
+export { computeCia, DEFAULT_CIA_NUMERICS, CIA_DIPOLE_CONVENTION, type CiaInput, type CiaResult, type CiaTemperature, type CiaSpectrum, type CiaNumerics } from './engines/cia/cia.js';
+export { buildPotential, type PotentialSpec, type PairPotential } from './engines/cia/potential.js';
+export { buildDipole, type DipoleSpec, type DipoleFunction } from './engines/cia/dipole.js';
+export { tangToenniesDamping } from './engines/cia/damping.js';
+export { HFD_SETS, type HfdParameters } from './engines/cia/hfd-parameters.js';
+export { STANDARD_ATOMIC_WEIGHTS, standardAtomicWeight } from './engines/cia/masses.js';
+export { absorptionPerAmagat2, alpha1FromM1, gamma1FromM0, BAND_INTEGRAL_DEFINITIONS } from './engines/cia/absorption.js';
+export { parsePotentialArgument, parseDipoleArgument, parseTwoColumnTable } from './model/cia-spec.js';
+export { ciaToJson, ciaToText, ciaToCsv } from './report/cia-report.js';
+export { ciaFigure } from './report/svg/cia-figure.js';
+
 // report
 export { pairToJson, pairToText, coefficientsToSI } from './report/pair-report.js';
 export { renderTable, TABLE_FORMATS, tableToJson, type TableFormat } from './report/table/index.js';

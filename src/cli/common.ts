@@ -2,7 +2,8 @@
 import { InvalidArgumentError } from 'commander';
 import { parseSpeciesFile } from '../model/species-file.js';
 import { isResponseDataFile, responseDataSpeciesFile } from '../model/response-data.js';
-import { resolveSpecies } from '../model/builtin-species.js';
+import { builtinSpecies, resolveSpecies } from '../model/builtin-species.js';
+import { InputError } from '../model/errors.js';
 import type { Species } from '../model/species.js';
 import type { CliIO } from './io.js';
 
@@ -30,12 +31,33 @@ export function oneOf<T extends string>(allowed: readonly T[]) {
   };
 }
 
-/** Read `--species FILE` (if given) into a name → species map. */
-export function loadSpeciesFile(io: CliIO, path: string | undefined): Map<string, Species> | undefined {
-  if (path === undefined) return undefined;
-  const text = io.readFile(path);
-  // a .csv file is one species' response data (src/model/response-data.ts)
-  return isResponseDataFile(path) ? responseDataSpeciesFile(text, path) : parseSpeciesFile(text, path);
+/**
+ * Read the `--species FILE` options (none, one or several; YAML/JSON species files and .csv response-data files
+ * may be mixed) into one name → species map. A name defined in two files, or a file redefining a built-in name
+ * (case-insensitive, as names resolve), is bad input: the same name must always mean the same species.
+ */
+export function loadSpeciesFile(io: CliIO, paths: string | readonly string[] | undefined): Map<string, Species> | undefined {
+  const list = paths === undefined ? [] : typeof paths === 'string' ? [paths] : paths;
+  if (list.length === 0) return undefined;
+  const merged = new Map<string, Species>();
+  const origin = new Map<string, string>();
+  const builtins = new Map(builtinSpecies().map((s) => [s.name.toLowerCase(), s.name]));
+  for (const path of list) {
+    const text = io.readFile(path);
+    // a .csv file is one species' response data (src/model/response-data.ts)
+    const file = isResponseDataFile(path) ? responseDataSpeciesFile(text, path) : parseSpeciesFile(text, path);
+    for (const [name, species] of file) {
+      const builtin = builtins.get(name.toLowerCase());
+      if (builtin !== undefined) {
+        throw new InputError(`${path}: species.${name}`, `redefines the built-in species ${builtin}; give it a name of its own (e.g. ${name}-custom)`);
+      }
+      const first = origin.get(name);
+      if (first !== undefined) throw new InputError(`${path}: species.${name}`, `is defined already in ${first}; define each name once over all --species files`);
+      origin.set(name, path);
+      merged.set(name, species);
+    }
+  }
+  return merged;
 }
 
 /** Resolve positional species tokens against the file and the built-ins. */

@@ -58,7 +58,7 @@ export const ATOM_LIBRARY: readonly AtomRecord[] = [
     C6: { value: 1.460977837725, source: YAN_1996 },
     C8: { value: 14.11785737, source: `${YAN_1996} (10 digits as carried by later He2 potentials)` },
     C10: { value: 183.691075, source: `${YAN_1996} (as carried by later He2 potentials)` },
-    B: { value: -7.327, source: 'D. M. Bishop, J. Pipin, J. Chem. Phys. 91, 3549 (1989) (quoted from memory)' },
+    B: { value: -7.327, source: 'D. M. Bishop, J. Pipin, J. Chem. Phys. 91, 3549 (1989), helium hyperpolarizabilities (the B entry quoted from memory)' },
   },
   {
     symbol: 'Ne',

@@ -11,6 +11,12 @@ import { drudeIsotropicResponse, drudeTensorResponse } from './response/drude-re
 import type { IsotropicResponse, TensorResponse } from './response/response-model.js';
 import { hydrogenicNotes, hydrogenicResponse, hydrogenicSpace } from './atoms/hydrogenic-atom.js';
 import { oscillatorSpectrumResponse, responseTableResponse } from './atoms/tabulated-response.js';
+import { recommendedAtomOf } from './atoms/recommended-atoms.js';
+import type { ResponseTableSpecies } from '../model/response-data.js';
+import { tdhfResponse } from './atoms/hartree-fock/tdhf-species.js';
+
+/** A table's response functions: a recommended atom's rescaled first-principles interpolant, else the table's own. */
+const tableResponse = (s: ResponseTableSpecies) => recommendedAtomOf(s)?.response ?? responseTableResponse(s);
 
 /** True when the species has a local state space (states, excitation energies, moments) for the perturbation route. */
 export function hasLocalSpace(s: Species): boolean {
@@ -20,6 +26,7 @@ export function hasLocalSpace(s: Species): boolean {
       return true;
     case 'response-table':
     case 'oscillator-spectrum':
+    case 'tdhf':
       return false;
   }
 }
@@ -36,6 +43,7 @@ export function localSpaceOf(s: Species, maxQuanta: number): LocalSpace {
       return hydrogenicSpace(s);
     case 'response-table':
     case 'oscillator-spectrum':
+    case 'tdhf':
       throw new Error(`${s.name} has response data only, no state space`);
   }
 }
@@ -48,9 +56,11 @@ export function isotropicResponseOf(s: Species): IsotropicResponse | undefined {
     case 'hydrogenic':
       return hydrogenicResponse(s);
     case 'response-table':
-      return responseTableResponse(s);
+      return tableResponse(s);
     case 'oscillator-spectrum':
       return oscillatorSpectrumResponse(s);
+    case 'tdhf':
+      return tdhfResponse(s);
   }
 }
 
@@ -62,6 +72,7 @@ export function tensorResponseOf(s: Species): TensorResponse | undefined {
     case 'hydrogenic':
     case 'response-table':
     case 'oscillator-spectrum':
+    case 'tdhf':
       return undefined;
   }
 }
@@ -74,6 +85,7 @@ export function isSpherical(s: Species): boolean {
     case 'hydrogenic':
     case 'response-table':
     case 'oscillator-spectrum':
+    case 'tdhf':
       return true;
   }
 }
@@ -83,9 +95,10 @@ export function responsePowerLimit(s: Species): 6 | 8 | 10 {
   switch (s.kind) {
     case 'drude':
     case 'hydrogenic':
+    case 'tdhf':
       return 10;
     case 'response-table':
-      return responseTableResponse(s).maxEnergyPower;
+      return tableResponse(s).maxEnergyPower;
     case 'oscillator-spectrum':
       return oscillatorSpectrumResponse(s).maxEnergyPower;
   }
@@ -99,16 +112,18 @@ export function speciesNotes(s: Species): string[] {
     case 'hydrogenic':
       return hydrogenicNotes(s);
     case 'response-table':
-      return responseTableResponse(s).notes;
+      return tableResponse(s).notes;
     case 'oscillator-spectrum':
       return oscillatorSpectrumResponse(s).notes;
+    case 'tdhf':
+      return tdhfResponse(s).notes;
   }
 }
 
 /** Warnings every pair with this species carries (approximate inputs). */
 export function speciesWarnings(s: Species): string[] {
   const approximate =
-    (s.kind === 'response-table' && responseTableResponse(s).approximateB) || (s.kind === 'oscillator-spectrum' && oscillatorSpectrumResponse(s).approximateB);
+    (s.kind === 'response-table' && tableResponse(s).approximateB) || (s.kind === 'oscillator-spectrum' && oscillatorSpectrumResponse(s).approximateB);
   return approximate
     ? [`D7 is APPROXIMATE: ${s.name} has only a static B, so B(0; iu, −iu) ≈ B·alpha(iu)/alpha(0) (for hydrogen this overestimates |D7| by 17% in H–H; see README)`]
     : [];

@@ -21,14 +21,30 @@ export interface RouteResult {
   D7: D7Triple;
   /** Full D7 vectors when the route gives all three components. */
   D7vectors?: { a: Vec3; b: Vec3 };
+  /** The next dispersion dipole, lim R^9 (mu_z − D7/R^7 − first-order terms), e·a0^10; absent when the route does not give it. */
+  D9?: D7Triple;
   /** Error estimates where the route has them (same keys as the values). */
-  error?: Partial<Record<'C6' | 'C8' | 'C10' | 'D7a' | 'D7b', number>>;
-  /** First-order (permanent-moment) terms, present when nonzero (anisotropic species). */
-  permanent?: { E5: number; D4: D7Triple };
+  error?: Partial<Record<'C6' | 'C8' | 'C10' | 'D7a' | 'D7b' | 'D9a' | 'D9b', number>>;
+  /** First-order (permanent-moment) terms, present when nonzero (anisotropic species); see {@link PermanentTerms}. */
+  permanent?: PermanentTerms;
   /** False when the route did not reach its tolerance: its numbers are untrusted. */
   converged: boolean;
   /** Human notes (e.g. which kernel, basis size, what was assumed). */
   notes: string[];
+}
+
+/**
+ * First-order (permanent-moment) terms of a pair of anisotropic centres, atomic units: E ∋ E5/R^5 + E7/R^7,
+ * mu_z ∋ D4/R^4 + D6/R^6 + D8/R^8 (first order in the couplings, from the permanent quadrupole, hexadecapole,
+ * rank-6 moments of one centre and the static polarisabilities of the other). E7, D6, D8 are absent when the route
+ * does not give them.
+ */
+export interface PermanentTerms {
+  E5: number;
+  D4: D7Triple;
+  E7?: number;
+  D6?: D7Triple;
+  D8?: D7Triple;
 }
 
 /**
@@ -42,7 +58,10 @@ export interface VectorCoefficients {
   C10?: number;
   D7a: Vec3;
   D7b: Vec3;
-  permanent: { E5: number; D4a: Vec3; D4b: Vec3 };
+  /** lim R^9 of the second-order dipole, e·a0^10 (when the engine gives it). */
+  D9a?: Vec3;
+  D9b?: Vec3;
+  permanent: { E5: number; D4a: Vec3; D4b: Vec3; E7?: number; D6a?: Vec3; D6b?: Vec3; D8a?: Vec3; D8b?: Vec3 };
 }
 
 /**
@@ -54,8 +73,16 @@ export function vectorRouteResult(
   r: VectorCoefficients,
   extra: { spherical: boolean; converged: boolean; notes: string[] },
 ): RouteResult {
-  const { E5, D4a, D4b } = r.permanent;
-  const hasPermanent = !extra.spherical && (E5 !== 0 || D4a.some((x) => x !== 0) || D4b.some((x) => x !== 0));
+  const { E5, D4a, D4b, E7, D6a, D6b, D8a, D8b } = r.permanent;
+  const nonzero = (v?: Vec3) => v !== undefined && v.some((x) => x !== 0);
+  const hasPermanent = !extra.spherical && (E5 !== 0 || (E7 ?? 0) !== 0 || [D4a, D4b, D6a, D6b, D8a, D8b].some(nonzero));
+  const permanent: PermanentTerms = {
+    E5,
+    D4: d7(D4a[2], D4b[2]),
+    ...(E7 !== undefined ? { E7 } : {}),
+    ...(D6a && D6b ? { D6: d7(D6a[2], D6b[2]) } : {}),
+    ...(D8a && D8b ? { D8: d7(D8a[2], D8b[2]) } : {}),
+  };
   return {
     name,
     C6: r.C6,
@@ -63,7 +90,8 @@ export function vectorRouteResult(
     ...(r.C10 !== undefined ? { C10: r.C10 } : {}),
     D7: d7(r.D7a[2], r.D7b[2]),
     D7vectors: { a: r.D7a, b: r.D7b },
-    ...(hasPermanent ? { permanent: { E5, D4: d7(D4a[2], D4b[2]) } } : {}),
+    ...(r.D9a && r.D9b ? { D9: d7(r.D9a[2], r.D9b[2]) } : {}),
+    ...(hasPermanent ? { permanent } : {}),
     converged: extra.converged,
     notes: extra.notes,
   };
@@ -90,7 +118,7 @@ export interface Route {
 }
 
 /**
- * Build a {@link D7Triple} from the two z components. A total below the rounding resolution of the sum
+ * Build a {@link D7Triple} (the same shape serves D9, D4, D6, D8) from the two z components. A total below the rounding resolution of the sum
  * (4 ulp of |a| + |b|) is reported as 0 rather than as rounding noise.
  */
 export function d7(a: number, b: number): D7Triple {

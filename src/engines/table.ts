@@ -7,17 +7,19 @@
  */
 import { InputError } from '../model/errors.js';
 import type { Species } from '../model/species.js';
-import { computePair, type PairOptions, type PairResult } from './pair.js';
-import { defaultRoutes } from './routes.js';
+import { computePair, requireRouteList, type PairOptions, type PairResult } from './pair.js';
+import { defaultRoutes, routeByName } from './routes.js';
 
 /** A pair to compute: A at the origin, B at +R on z. */
 export type SpeciesPair = readonly [Species, Species];
 
 /**
  * Row status: "ok" — at least two routes ran and agree; "unchecked" — only one route could run, so there is no
- * cross-check; "UNTRUSTED" — a route did not converge or the routes disagree beyond the agreement tolerance.
+ * cross-check; "UNTRUSTED" — a route did not converge or the routes disagree beyond the agreement tolerance;
+ * "model" — the routes may agree, but D7 rests on a stand-in model's B (a QDO for a real atom, a static B only; see
+ * accuracy.ts): its own status so a model number never reads "ok". UNTRUSTED comes first, then model.
  */
-export type RowStatus = 'ok' | 'unchecked' | 'UNTRUSTED';
+export type RowStatus = 'ok' | 'unchecked' | 'UNTRUSTED' | 'model';
 
 export interface TableRow {
   /** The pair computation, identical to `computePair(a, b, options)`. */
@@ -44,10 +46,20 @@ export interface TableSettings {
   maxQuanta?: number;
 }
 
+/** A pair of the table that no requested route can handle: flagged in the output, the other rows still written. */
+export interface UncomputedPair {
+  a: Species;
+  b: Species;
+  /** Why each route declined, joined. */
+  reason: string;
+}
+
 export interface CoefficientTable {
   /** Distinct species of the table, in order of first appearance in the rows. */
   species: Species[];
   rows: TableRow[];
+  /** Pairs no requested route can handle (absent or empty when every pair was computed). */
+  uncomputed?: UncomputedPair[];
   settings: TableSettings;
 }
 
@@ -126,21 +138,41 @@ export function selectPairs(entries: readonly string[], species: readonly Specie
 /** The status of one pair result (see {@link RowStatus}). */
 export function rowStatus(r: PairResult): RowStatus {
   if (!r.trusted) return 'UNTRUSTED';
+  if (r.accuracy.quantities.D7 === 'model') return 'model';
   return r.routes.length < 2 ? 'unchecked' : 'ok';
 }
 
 /** Number of rows whose status is UNTRUSTED. */
 export const untrustedCount = (table: CoefficientTable): number => table.rows.filter((r) => r.status === 'UNTRUSTED').length;
 
+/**
+ * Why no requested route can handle the pair (each route's reason), or undefined when one can. Unknown route
+ * names give undefined here, so computePair reports them as bad input.
+ */
+function noRouteReason(a: Species, b: Species, names?: readonly string[]): string | undefined {
+  const routes = names ? names.map(routeByName) : defaultRoutes;
+  if (routes.some((r) => r === undefined)) return undefined;
+  const reasons = routes.map((r) => r!.unsupported(a, b));
+  return reasons.every((why) => why) ? reasons.join('; ') : undefined;
+}
+
 /** Compute every pair with {@link computePair} (same options for all) and collect the table. */
 export function computeTable(pairs: readonly SpeciesPair[], options: TableOptions = {}): CoefficientTable {
   if (pairs.length === 0) throw new InputError('species', 'none given: the table needs at least one pair');
+  requireRouteList(options.routes);
   const { onProgress, ...pairOptions } = options;
   const rows: TableRow[] = [];
+  const uncomputed: UncomputedPair[] = [];
   for (const [a, b] of pairs) {
+    const reason = noRouteReason(a, b, pairOptions.routes);
+    if (reason !== undefined) {
+      uncomputed.push({ a, b, reason });
+      onProgress?.(rows.length + uncomputed.length, pairs.length);
+      continue;
+    }
     const result = computePair(a, b, pairOptions);
     rows.push({ result, status: rowStatus(result) });
-    onProgress?.(rows.length, pairs.length);
+    onProgress?.(rows.length + uncomputed.length, pairs.length);
   }
   const byName = new Map<string, Species>();
   for (const [a, b] of pairs) for (const s of [a, b]) if (!byName.has(s.name)) byName.set(s.name, s);
@@ -149,6 +181,7 @@ export function computeTable(pairs: readonly SpeciesPair[], options: TableOption
   return {
     species: [...byName.values()],
     rows,
+    ...(uncomputed.length ? { uncomputed } : {}),
     settings: {
       routes,
       routesRun: routes.filter((r) => ran.has(r)),

@@ -8,8 +8,9 @@
  * units too and never waits for a worker that has not joined the run (on a loaded machine a sleeping worker costs
  * nothing). Workers are unref'd and told to quit by `close()`, so they never keep the process alive.
  */
-import { MessageChannel, Worker, receiveMessageOnPort, type MessagePort } from 'node:worker_threads';
+import type { MessagePort, Worker } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
+import { workerThreadsModule } from '../lazy-modules.js';
 import { Workspace, instantiateKernels, kernelModule, type Kernels, type WasmMemory } from './simd-kernels.js';
 import { TEAM_TASKS, type TeamContext, type TeamTaskName } from './team-tasks.js';
 
@@ -128,6 +129,7 @@ export class ThreadTeam {
     const code = workerSource();
     new Function('require', code); // a syntax error would kill the workers silently: fail here instead
     const module = kernelModule();
+    const { MessageChannel, Worker } = workerThreadsModule();
     for (let member = 1; member < size; member++) {
       const { port1, port2 } = new MessageChannel();
       const worker = new Worker(code, { eval: true, workerData: { control: this.control, port: port2, module, member }, transferList: [port2] });
@@ -232,6 +234,7 @@ export class ThreadTeam {
   private rethrowWorkerError(): void {
     if (!Atomics.load(this.ctl, FAILED)) return;
     const messages: string[] = [];
+    const { receiveMessageOnPort } = workerThreadsModule();
     for (const { port } of this.workers) for (let m; (m = receiveMessageOnPort(port)); ) messages.push(String(m.message));
     throw new Error(`worker thread failed: ${messages.join('\n')}`);
   }

@@ -43,11 +43,63 @@ export interface DrudeParameters {
   w: number;
 }
 
-/** An isotropic QDO; every field validated (finite, > 0). */
+/**
+ * Derived quantities of a QDO as powers q^a m^b w^c (with their constant factor): the polarisabilities, B, the
+ * like-pair C6, C8, C10 and D7 scales and the oscillator length 1/sqrt(m w) (closed forms above; C10 and D7 up
+ * to a constant, derived here). Every route computes with these magnitudes.
+ */
+const DERIVED: ReadonlyArray<{ what: string; c: number; q: number; m: number; w: number }> = [
+  { what: 'alpha1 = q²/(m w²)', c: 1, q: 2, m: -1, w: -2 },
+  { what: 'alpha2 = (3/4) q²/(m² w³)', c: 0.75, q: 2, m: -2, w: -3 },
+  { what: 'alpha3 = (5/4) q²/(m³ w⁴)', c: 1.25, q: 2, m: -3, w: -4 },
+  { what: 'B = −2 q³/(m² w⁴)', c: 2, q: 3, m: -2, w: -4 },
+  { what: 'the like-pair C6 = (3/4) q⁴/(m² w³)', c: 0.75, q: 4, m: -2, w: -3 },
+  { what: 'the like-pair C8 = (15/4) q⁴/(m³ w⁴)', c: 3.75, q: 4, m: -3, w: -4 },
+  { what: 'the C10 scale q⁴/(m⁴ w⁵)', c: 1, q: 4, m: -4, w: -5 },
+  { what: 'the D7 scale q⁵/(m³ w⁵)', c: 1, q: 5, m: -3, w: -5 },
+  { what: 'the oscillator length 1/sqrt(m w)', c: 1, q: 0, m: -0.5, w: -0.5 },
+];
+
+/**
+ * Largest |log10| of a derived quantity accepted: 10^±100 leaves room for the products of two species and the
+ * squares inside the routes within double precision (about 10^±308), far beyond any physical oscillator.
+ */
+export const DRUDE_DERIVED_LOG10_LIMIT = 100;
+
+/**
+ * Refuse parameters whose derived quantities ({@link DERIVED}) overflow or underflow, naming the field that
+ * drives the magnitude (e.g. `drude:q=1,m=1,w=1e-200.w`). Computed in logarithms, so the check itself cannot
+ * overflow. `fields` names the parameters (`w` or the axis `wx`, `wy`, `wz`).
+ */
+function requireRepresentable(name: string, q: number, m: number, w: readonly number[], wFields: readonly string[]): void {
+  const lq = Math.log10(q), lm = Math.log10(m);
+  w.forEach((wi, axis) => {
+    const lw = Math.log10(wi);
+    for (const d of DERIVED) {
+      const parts = [
+        { field: 'q', value: q, e: d.q, part: d.q * lq },
+        { field: 'm', value: m, e: d.m, part: d.m * lm },
+        { field: wFields[axis], value: wi, e: d.w, part: d.w * lw },
+      ];
+      const total = Math.log10(d.c) + parts.reduce((s, p) => s + p.part, 0);
+      if (Math.abs(total) <= DRUDE_DERIVED_LOG10_LIMIT) continue;
+      const culprit = parts.reduce((best, p) => (p.part * Math.sign(total) > best.part * Math.sign(total) ? p : best));
+      const given = parts.map((p) => `${p.field}=${p.value}`).join(', ');
+      throw new InputError(
+        `${name}.${culprit.field}`,
+        `gives ${d.what} ≈ 1e${Math.round(total)} (with ${given}), beyond the range 1e±${DRUDE_DERIVED_LOG10_LIMIT} this program computes in; ` +
+          `choose ${culprit.field} ${Math.sign(total) * Math.sign(culprit.e) > 0 ? 'smaller' : 'larger'}`,
+      );
+    }
+  });
+}
+
+/** An isotropic QDO; every field validated (finite, > 0, derived quantities representable). */
 export function drude(params: DrudeParameters, name = 'drude', source?: string): DrudeSpecies {
   const q = requirePositive(`${name}.q`, params.q);
   const m = requirePositive(`${name}.m`, params.m);
   const w = requirePositive(`${name}.w`, params.w);
+  requireRepresentable(name, q, m, [w], ['w']);
   return { kind: 'drude', name, q, m, w: [w, w, w], ...(source ? { source } : {}) };
 }
 
@@ -64,6 +116,7 @@ export function drudeAnisotropic(
     requirePositive(`${name}.wy`, params.wy),
     requirePositive(`${name}.wz`, params.wz),
   ];
+  requireRepresentable(name, q, m, w, ['wx', 'wy', 'wz']);
   return { kind: 'drude', name, q, m, w, ...(source ? { source } : {}) };
 }
 
@@ -84,7 +137,15 @@ export function drudeFromTargets(
   const w = (4 * C6) / (3 * alpha * alpha);
   const m = (5 * C6) / (w * C8);
   const q = Math.sqrt(m * w * w * alpha);
-  if (!(q > 0) || !Number.isFinite(q)) throw new InputError(name, 'targets alpha, C6, C8 give no valid oscillator');
+  if (!(q > 0) || !Number.isFinite(q) || !(m > 0) || !Number.isFinite(m) || !(w > 0) || !Number.isFinite(w)) {
+    throw new InputError(name, `targets alpha, C6, C8 give no valid oscillator (q=${q}, m=${m}, w=${w})`);
+  }
+  try {
+    requireRepresentable(name, q, m, [w], ['w']);
+  } catch (e) {
+    if (e instanceof InputError) throw new InputError(name, `targets alpha, C6, C8 give an oscillator that ${e.problem.replace(/; choose .*$/, '')}`);
+    throw e;
+  }
   return {
     kind: 'drude',
     name,

@@ -3,8 +3,8 @@
  *
  *   3                         ← line 1: the number of centres
  *   an invented triangle      ← line 2: a comment (may be empty)
- *   Quelon  0.0  0.0  0.0     ← one line per centre: label x y z (ångström unless told otherwise)
- *   …
+ *   Quelon  0.0  0.0  0.0     ← one line per centre: label x y z (ångström unless told otherwise); a fifth
+ *   …                           column (extended XYZ files carry one, e.g. a charge) is accepted and ignored
  *
  * Pure: takes the file's text; the CLI reads the file. Positions are returned in bohr. Errors name the file and
  * the line (`file.xyz:4`) and say what was expected.
@@ -35,6 +35,8 @@ export interface XyzOptions {
   fileName?: string;
   /** Centres closer than this (bohr) are reported as coinciding. Default 1e-3 bohr. */
   minSeparation?: number;
+  /** Refuse, before reading the centres, a file announcing more than `count` of them; `why` ends the message. */
+  maxCentres?: { count: number; why: string };
 }
 
 const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eEdD][+-]?\d+)?$/;
@@ -52,6 +54,9 @@ export function parseXyz(text: string, options: XyzOptions = {}): Geometry {
     throw new InputError(at(1), `expected the number of centres (an integer ≥ 1) on the first line (XYZ format), got ${JSON.stringify(countText)}`);
   }
   const count = Number(countText);
+  if (options.maxCentres && count > options.maxCentres.count) {
+    throw new InputError(at(1), `announces ${count} centres; at most ${options.maxCentres.count} can be handled: ${options.maxCentres.why}`);
+  }
   if (lines.length < 2) throw new InputError(at(2), 'the comment line is missing (XYZ: count line, comment line, then one "label x y z" line per centre)');
   const comment = lines[1].trim();
 
@@ -64,10 +69,10 @@ export function parseXyz(text: string, options: XyzOptions = {}): Geometry {
       throw new InputError(at(line), `expected centre ${k + 1} of ${count} ("label x y z"), found ${atEnd ? 'the end of the file' : 'an empty line'}`);
     }
     const fields = raw.trim().split(/\s+/);
-    if (fields.length !== 4) {
-      throw new InputError(at(line), `expected "label x y z" (4 fields), got ${fields.length}: ${JSON.stringify(raw.trim())}`);
+    if (fields.length !== 4 && fields.length !== 5) {
+      throw new InputError(at(line), `expected "label x y z" (4 fields), got ${fields.length}: ${JSON.stringify(raw.trim())} (a fifth column, as extended XYZ files have, is allowed and ignored)`);
     }
-    const [label, ...xyz] = fields;
+    const [label, ...xyz] = fields.slice(0, 4);
     if (NUMBER.test(label)) throw new InputError(at(line), `expected a label first, got the number ${JSON.stringify(label)}`);
     const position = xyz.map((f, axis) => {
       if (!NUMBER.test(f)) throw new InputError(at(line), `${'xyz'[axis]} coordinate ${JSON.stringify(f)} is not a number`);
@@ -82,15 +87,40 @@ export function parseXyz(text: string, options: XyzOptions = {}): Geometry {
       throw new InputError(at(line), `unexpected content after the ${count} centres announced on line 1: ${JSON.stringify(lines[line - 1].trim())}`);
     }
   }
-  const minSep = options.minSeparation ?? 1e-3;
-  for (let i = 0; i < centres.length; i++)
-    for (let j = 0; j < i; j++) {
-      const r = distance(centres[i].position, centres[j].position);
-      if (r < minSep) {
-        throw new InputError(at(centres[i].line), `centre ${centres[i].label} coincides with centre ${centres[j].label} on line ${centres[j].line} (${r.toExponential(2)} bohr apart)`);
-      }
-    }
+  requireApart(centres, options.minSeparation ?? 1e-3, at);
   return { comment, centres };
+}
+
+/**
+ * Refuse centres closer than `minSep` (bohr), in O(N): each centre goes into a cubic grid cell of side minSep,
+ * and only the 27 cells around it can hold a centre that close (a spatial hash; common practice).
+ */
+function requireApart(centres: readonly GeometryCentre[], minSep: number, at: (line: number) => string): void {
+  // cell (i, j, k) → a small integer, each index folded to 10 bits: distant cells may share a key, which only costs a
+  // distance test; number keys keep the scan about ten times faster than string keys
+  const WRAP = 1024;
+  const fold = (x: number) => ((x % WRAP) + WRAP) % WRAP;
+  const key = (i: number, j: number, k: number) => (fold(i) * WRAP + fold(j)) * WRAP + fold(k);
+  const cells = new Map<number, GeometryCentre[]>();
+  for (const c of centres) {
+    const [i, j, k] = c.position.map((x) => Math.floor(x / minSep));
+    for (let di = -1; di <= 1; di++)
+      for (let dj = -1; dj <= 1; dj++)
+        for (let dk = -1; dk <= 1; dk++) {
+          const near = cells.get(key(i + di, j + dj, k + dk));
+          if (!near) continue;
+          for (const other of near) {
+            const r = distance(c.position, other.position);
+            if (r < minSep) {
+              throw new InputError(at(c.line), `centre ${c.label} coincides with centre ${other.label} on line ${other.line} (${r.toExponential(2)} bohr apart)`);
+            }
+          }
+        }
+    const own = key(i, j, k);
+    const list = cells.get(own);
+    if (list) list.push(c);
+    else cells.set(own, [c]);
+  }
 }
 
 /** |a − b|, bohr. */

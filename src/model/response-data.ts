@@ -77,6 +77,27 @@ const SPECTRUM_COLUMNS: Record<string, ColumnSpec> = {
 };
 const SETTINGS = ['name', 'electrons', 'B', 'source'] as const;
 const TABLE_MIN_ROWS = 6;
+/**
+ * Largest number of data rows (tables and pseudo-spectra). alpha(iu) is smooth: published tables use 10 to 100
+ * frequencies (common practice), and the rational interpolation's cost grows with the square of the rows.
+ */
+export const RESPONSE_DATA_MAX_ROWS = 2000;
+
+/**
+ * Largest |log10| of a response value (and of the derived static alpha of a pseudo-spectrum): 10^±100 keeps the
+ * C_n and D7 integrals, products of two species' values, within double precision (about 10^±308).
+ */
+export const RESPONSE_VALUE_LOG10_LIMIT = 100;
+
+/** A value within 10^±{@link RESPONSE_VALUE_LOG10_LIMIT} (or 0), else an InputError naming `field`. */
+function requireModerate(field: string, what: string, x: number): number {
+  const size = Math.abs(x);
+  if (size === 0 || (size <= 10 ** RESPONSE_VALUE_LOG10_LIMIT && size >= 10 ** -RESPONSE_VALUE_LOG10_LIMIT)) return x;
+  throw new InputError(field, `${what} = ${x} is beyond the range 1e±${RESPONSE_VALUE_LOG10_LIMIT} this program computes in (values of this size overflow the coefficients)`);
+}
+
+/** alpha(0) = Σ f_i/ω_i² of a pseudo-spectrum, a0³. */
+const staticSpectrumAlpha = (energies: readonly number[], strengths: readonly number[]) => energies.reduce((s, e, i) => s + strengths[i] / (e * e), 0);
 
 /** The species named in a response-data file (name setting, else the file's base name without extension). */
 export function parseResponseData(text: string, fileName: string): ResponseDataSpecies {
@@ -101,6 +122,9 @@ export function parseResponseData(text: string, fileName: string): ResponseDataS
       }
       header = { cells: splitCells(line), line: i + 1 };
       return;
+    }
+    if (rows.length >= RESPONSE_DATA_MAX_ROWS) {
+      throw new InputError(at(i + 1), `has more than ${RESPONSE_DATA_MAX_ROWS} data rows, the limit for response data (alpha(iu) is smooth: 10 to 100 frequencies are plenty)`);
     }
     rows.push({ cells: splitCells(line), line: i + 1 });
   });
@@ -146,7 +170,7 @@ export function parseResponseData(text: string, fileName: string): ResponseDataS
       if (cell === '' || !Number.isFinite(x)) {
         throw new InputError(at(row.line, c + 1), `${labels[c].label} must be a finite number, got ${describeValue(cell)}`);
       }
-      columns.get(labels[c].label)!.push(x * factors.get(labels[c].label)!);
+      columns.get(labels[c].label)!.push(requireModerate(at(row.line, c + 1), labels[c].label, x * factors.get(labels[c].label)!));
     });
   }
   const colOf = (label: string) => labels.findIndex((l) => l.label === label) + 1;
@@ -159,7 +183,7 @@ export function parseResponseData(text: string, fileName: string): ResponseDataS
     if (s.value === '' || !Number.isFinite(x) || (positive && !(x > 0))) {
       throw new InputError(at(s.line, 1), `setting ${key} must be a finite number${positive ? ' > 0' : ''}, got ${describeValue(s.value)}`);
     }
-    return x;
+    return requireModerate(at(s.line, 1), `setting ${key}`, x);
   };
   const name = setting('name')?.value || baseName(fileName);
   const electrons = numberSetting('electrons', true);
@@ -181,6 +205,7 @@ export function parseResponseData(text: string, fileName: string): ResponseDataS
     if (staticB === undefined) {
       throw new InputError(at(header.line), 'a pseudo-spectrum needs the static hyperpolarisability: add a setting line "B = <value in atomic units>" before the header');
     }
+    requireModerate(at(header.line), 'the static alpha = Σ f/ω²', staticSpectrumAlpha(energies, strengths));
     return { kind: 'oscillator-spectrum', ...common, energies, strengths, staticB };
   }
 
@@ -246,18 +271,22 @@ export function oscillatorSpectrum(
   const list = (key: 'energies' | 'strengths'): number[] => {
     const v = fields[key];
     if (!Array.isArray(v) || v.length === 0) throw new InputError(`${name}.${key}`, `must be a non-empty list of numbers > 0, got ${describeValue(v)}`);
+    if (v.length > RESPONSE_DATA_MAX_ROWS) throw new InputError(`${name}.${key}`, `has ${v.length} values; the limit is ${RESPONSE_DATA_MAX_ROWS}`);
     return v.map((x, i) => {
       const n = typeof x === 'string' && x.trim() !== '' ? Number(x) : x;
       if (typeof n !== 'number' || !(n > 0) || !Number.isFinite(n)) throw new InputError(`${name}.${key}[${i}]`, `must be a finite number > 0, got ${describeValue(x)}`);
       return n;
     });
   };
-  const energies = list('energies'), strengths = list('strengths');
+  const energies = list('energies').map((x, i) => requireModerate(`${name}.energies[${i}]`, 'energy', x));
+  const strengths = list('strengths').map((x, i) => requireModerate(`${name}.strengths[${i}]`, 'strength', x));
   if (energies.length !== strengths.length) {
     throw new InputError(`${name}.strengths`, `must have one value per energy (${energies.length}), got ${strengths.length}`);
   }
   const B = typeof fields.B === 'string' ? Number(fields.B) : fields.B;
   if (typeof B !== 'number' || !Number.isFinite(B)) throw new InputError(`${name}.B`, `must be a finite number (static B, atomic units), got ${describeValue(fields.B)}`);
+  requireModerate(`${name}.B`, 'B', B);
+  requireModerate(`${name}.energies`, 'the static alpha = Σ f/ω²', staticSpectrumAlpha(energies, strengths));
   let electrons: number | undefined;
   if (fields.electrons !== undefined) {
     const e = typeof fields.electrons === 'string' ? Number(fields.electrons) : fields.electrons;

@@ -11,7 +11,7 @@
  *
  * Pure: takes the file's text; the CLI reads the file.
  */
-import { parse as parseYaml } from 'yaml';
+import { yamlModule } from '../lazy-modules.js';
 import { InputError } from './errors.js';
 import { buildSpecies } from './species-kinds.js';
 import type { Species } from './species.js';
@@ -20,7 +20,7 @@ import type { Species } from './species.js';
 export function parseSpeciesFile(text: string, fileName: string): Map<string, Species> {
   let doc: unknown;
   try {
-    doc = parseYaml(text);
+    doc = yamlModule().parse(text);
   } catch (e) {
     throw new InputError(fileName, `is not valid YAML or JSON: ${(e as Error).message.split('\n')[0]}`);
   }

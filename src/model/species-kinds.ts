@@ -5,6 +5,7 @@
 import { drude, drudeAnisotropic, drudeFromTargets } from './drude.js';
 import { InputError } from './errors.js';
 import { DEFAULT_HYDROGENIC_BASIS, hydrogenic } from './hydrogenic.js';
+import { DEFAULT_TDHF_BASIS, tdhfSpecies } from './closed-shell.js';
 import { oscillatorSpectrum, responseDataFromText } from './response-data.js';
 import type { Species } from './species.js';
 
@@ -14,6 +15,8 @@ export interface SpeciesKind {
   summary: string;
   /** Allowed field names (the builder checks which combination is present). */
   fields: readonly string[];
+  /** Field a bare first value of an inline spec fills (e.g. `tdhf:He` means element=He). */
+  positional?: string;
   build(fields: Record<string, unknown>, name: string, source?: string): Species;
 }
 
@@ -46,6 +49,14 @@ export const speciesKinds: Record<string, SpeciesKind> = {
     fields: ['Z', 'basis'],
     build(f, name, source) {
       return hydrogenic({ Z: f.Z, basis: f.basis }, name, source);
+    },
+  },
+  tdhf: {
+    summary: `closed-shell atom or ion from first principles (time-dependent Hartree–Fock): element symbol or Z, optional charge, basis (Slater functions per l, default ${DEFAULT_TDHF_BASIS}); e.g. tdhf:He, tdhf:Z=11,charge=1`,
+    fields: ['element', 'Z', 'charge', 'basis'],
+    positional: 'element',
+    build(f, name, source) {
+      return tdhfSpecies({ element: f.element, Z: f.Z, charge: f.charge, basis: f.basis }, name, source);
     },
   },
   spectrum: {
@@ -84,17 +95,23 @@ export function buildSpecies(kind: string, fields: Record<string, unknown>, name
  */
 export function parseInlineSpecies(spec: string): Species {
   const colon = spec.indexOf(':');
-  if (colon < 0) throw new InputError(spec, 'an inline species needs the form kind:key=value,…');
+  if (colon < 0) throw new InputError(spec.trim() === '' ? 'species' : spec, `${spec.trim() === '' ? 'is empty; ' : ''}an inline species needs the form kind:key=value,…`);
   const kind = spec.slice(0, colon).trim();
   const body = spec.slice(colon + 1).trim();
-  const fields: Record<string, unknown> = {};
+  // null prototype: a key such as __proto__ or constructor is an ordinary (unknown) field name, nothing inherited
+  const fields: Record<string, unknown> = Object.create(null) as Record<string, unknown>;
   if (body !== '') {
-    for (const part of body.split(',')) {
+    const positional = Object.prototype.hasOwnProperty.call(speciesKinds, kind) ? speciesKinds[kind].positional : undefined;
+    for (const [index, part] of body.split(',').entries()) {
       const eq = part.indexOf('=');
+      if (eq < 0 && index === 0 && positional) {
+        fields[positional] = part.trim();
+        continue;
+      }
       if (eq < 0) throw new InputError(`${spec}`, `expected key=value, got ${JSON.stringify(part)}`);
       const key = part.slice(0, eq).trim();
       const raw = part.slice(eq + 1).trim();
-      if (key in fields) throw new InputError(`${spec}.${key}`, 'is given twice');
+      if (Object.hasOwn(fields, key)) throw new InputError(`${spec}.${key}`, 'is given twice');
       const value = Number(raw);
       fields[key] = raw === '' ? raw : Number.isNaN(value) ? raw : value;
     }

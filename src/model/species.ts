@@ -5,15 +5,17 @@
  */
 import type { DrudeSpecies } from './drude.js';
 import type { HydrogenicSpecies } from './hydrogenic.js';
+import { describeTdhf, type TdhfSpecies } from './closed-shell.js';
 import type { OscillatorSpectrumSpecies, ResponseTableSpecies } from './response-data.js';
 import { sig } from './number-text.js';
 
 export type { DrudeSpecies } from './drude.js';
 export type { HydrogenicSpecies } from './hydrogenic.js';
+export type { TdhfSpecies } from './closed-shell.js';
 export type { OscillatorSpectrumSpecies, ResponseTableSpecies } from './response-data.js';
 
 /** Any species. */
-export type Species = DrudeSpecies | HydrogenicSpecies | ResponseTableSpecies | OscillatorSpectrumSpecies;
+export type Species = DrudeSpecies | HydrogenicSpecies | ResponseTableSpecies | OscillatorSpectrumSpecies | TdhfSpecies;
 
 /** A one-line, human description of a species' parameters (atomic units). */
 export function describeSpecies(s: Species): string {
@@ -23,6 +25,8 @@ export function describeSpecies(s: Species): string {
       const freq = wx === wy && wy === wz ? `w=${fmt(wx)}` : `wx=${fmt(wx)},wy=${fmt(wy)},wz=${fmt(wz)}`;
       return `drude q=${fmt(s.q)} m=${fmt(s.m)} ${freq}`;
     }
+    case 'tdhf':
+      return describeTdhf(s);
     case 'hydrogenic':
       return `hydrogenic Z=${fmt(s.Z)} basis=${s.basis} (Sturmian pseudo-spectrum, l ≤ 3)`;
     case 'response-table': {

@@ -29,6 +29,21 @@ export const DEBYE_IN_COULOMB_METRE = 1e-21 / SPEED_OF_LIGHT;
 /** Atomic unit of dipole moment in debye (≈ 2.541746). */
 export const DIPOLE_AU_IN_DEBYE = DIPOLE_AU_IN_COULOMB_METRE / DEBYE_IN_COULOMB_METRE;
 
+/** Boltzmann constant, J/K (exact since 2019). */
+export const BOLTZMANN_IN_JOULE_PER_KELVIN = 1.380649e-23;
+/** Boltzmann constant in Eh/K (k_B / Eh ≈ 3.166 811 563e-6, CODATA 2018). */
+export const BOLTZMANN_IN_HARTREE_PER_KELVIN = BOLTZMANN_IN_JOULE_PER_KELVIN / HARTREE_IN_JOULE;
+/** Atomic mass constant u in electron masses (CODATA 2018: m_u/m_e = 1822.888 486 209). */
+export const DALTON_IN_ELECTRON_MASS = 1822.888486209;
+/** Inverse fine-structure constant 1/alpha = c in atomic units (CODATA 2018: 137.035 999 084). */
+export const SPEED_OF_LIGHT_AU = 137.035999084;
+/** Loschmidt constant n0 at 273.15 K and 101.325 kPa, m^-3 (CODATA 2018: 2.686 780 111e25): one amagat. */
+export const AMAGAT_PER_CUBIC_METRE = 2.686780111e25;
+/** One amagat in bohr^-3. */
+export const AMAGAT_IN_PER_BOHR3 = AMAGAT_PER_CUBIC_METRE * BOHR_IN_METRE ** 3;
+/** Bohr radius in cm. */
+export const BOHR_IN_CENTIMETRE = BOHR_IN_METRE * 100;
+
 /** Length: bohr → ångström. */
 export const bohrToAngstrom = (r: number): number => r * BOHR_IN_ANGSTROM;
 /** Length: ångström → bohr. */
@@ -56,3 +71,21 @@ export function dipoleCoefficientAuToSI(value: number, n: number): number {
 export function dipoleCoefficientAuToDebyeAngstrom(value: number, n: number): number {
   return value * DIPOLE_AU_IN_DEBYE * BOHR_IN_ANGSTROM ** n;
 }
+
+/** Hartree energy in kelvin, Eh/k_B (CODATA 2018: 3.1577502480407e5 K). */
+export const HARTREE_IN_KELVIN = 1 / BOLTZMANN_IN_HARTREE_PER_KELVIN;
+/** Hartree energy in kJ/mol, Eh·N_A (CODATA 2018: 2625.4996394799 kJ/mol). */
+export const HARTREE_IN_KJ_PER_MOL = 2625.4996394799;
+
+/** Energy units a spectroscopist reads, for SI output (`--energy-unit`). */
+export const ENERGY_UNITS = ['cm-1', 'K', 'meV', 'kJ/mol'] as const;
+export type EnergyUnit = (typeof ENERGY_UNITS)[number];
+
+/** Energy: hartree → `unit` (CODATA 2018 factors above). */
+export function energyFromHartree(value: number, unit: EnergyUnit): number {
+  const factor = { 'cm-1': HARTREE_IN_WAVENUMBER, K: HARTREE_IN_KELVIN, meV: 1000 * HARTREE_IN_EV, 'kJ/mol': HARTREE_IN_KJ_PER_MOL }[unit];
+  return value * factor;
+}
+
+/** Printed name of an energy unit (`cm^-1` …). */
+export const energyUnitText = (unit: EnergyUnit): string => (unit === 'cm-1' ? 'cm^-1' : unit);

@@ -4,19 +4,8 @@ import type { CheckResult } from '../engines/symbolic/formula-check.js';
 import { symbolTable, type PairLayout, type SymbolRole, type SymbolTable } from '../engines/symbolic/symbols.js';
 import { VERSION } from '../version.js';
 import { sig, textTable } from './format.js';
+import { LATEX_NAME } from './latex-names.js';
 
-/** LaTeX name of a quantity. */
-const LATEX_NAME: Record<SymbolicQuantity, string> = {
-  C6: 'C_6',
-  C8: 'C_8',
-  C10: 'C_{10}',
-  'D7.a': 'D_{7}^{(a)}',
-  'D7.b': 'D_{7}^{(b)}',
-  'D7.total': 'D_{7}',
-  'mu.a': '\\mu_{a,z}(R)',
-  'mu.b': '\\mu_{b,z}(R)',
-  'mu.total': '\\mu_{z}(R)',
-};
 
 /** The symbols of a layout that a closed form in `variables` uses (for headers and JSON). */
 function usedSymbols(table: SymbolTable, variables: VariableSet, withR: boolean) {

@@ -1,28 +1,21 @@
 // Time of `computeCluster` (energies, screened alpha and C6, all force-balance dipoles) for 100 … 1000 centres,
 // split by stage. Target (N-oscillator issue): 1000 centres in under 30 s on the 2-core machine.
-// Usage: node tests/bench/cluster.bench.mjs [N …]   (default 100 200 400 700 1000)
+// Usage: node tests/bench/cluster.bench.mjs [N …]   (default 100 200 400 700 1000; DISPOLE_DIST=/path/to/build to
+// measure another build than dist/)
 // Besides wall time, each line shows the process CPU time (all threads), the thread count the engine chose and the
 // 1-minute load average before the run: on a shared machine the wall time is an upper bound.
 import { availableParallelism, loadavg } from 'node:os';
-import { computeCluster } from '../../dist/engines/cluster/cluster.js';
-import { teamSizeFor } from '../../dist/math/thread-team.js';
-import { drude } from '../../dist/model/drude.js';
+import { join, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
 
-const Quelon = drude({ q: 1.1, m: 0.38, w: 0.72 }, 'Quelon');
-const Virid = drude({ q: 1.45, m: 0.52, w: 0.6 }, 'Virid');
+const dist = resolve(process.env.DISPOLE_DIST ?? new URL('../../dist', import.meta.url).pathname);
+const fromBuild = (path) => import(pathToFileURL(join(dist, path)).href);
+const { computeCluster } = await fromBuild('engines/cluster/cluster.js');
+const { teamSizeFor } = await fromBuild('math/thread-team.js');
+const { drude } = await fromBuild('model/drude.js');
+import { randomCluster as randomClusterOf } from './random-cluster.mjs';
 
-/** N centres at random in a cube, at least 6 bohr apart (a dense invented liquid-like cluster); seeded. */
-function randomCluster(N) {
-  let seed = 12345;
-  const rnd = () => (seed = (seed * 16807) % 2147483647) / 2147483647;
-  const L = Math.cbrt(N) * 7.5;
-  const pts = [];
-  while (pts.length < N) {
-    const p = [rnd() * L, rnd() * L, rnd() * L];
-    if (pts.every((q) => Math.hypot(p[0] - q[0], p[1] - q[1], p[2] - q[2]) > 6)) pts.push(p);
-  }
-  return pts.map((p, i) => ({ label: i % 3 ? 'Quelon' : 'Virid', species: i % 3 ? Quelon : Virid, position: p }));
-}
+const randomCluster = (N) => randomClusterOf(N, drude);
 
 const sizes = process.argv.slice(2).map(Number).filter((x) => x > 0);
 console.log(`node ${process.version}, ${availableParallelism()} cores`);

@@ -82,7 +82,7 @@ describe('dispole check', () => {
     expect(missing.err).toContain("required option '--for <quantity>' not specified");
     const quantity = await run(['check', 'qa', '--for', 'E5']);
     expect(quantity.code).toBe(2);
-    expect(quantity.err).toBe('dispole: error: --for: unknown quantity "E5"; known: C6, C8, C10, D7.a, D7.b, D7.total, mu.a, mu.b, mu.total\n');
+    expect(quantity.err).toBe('dispole: error: --for: unknown quantity "E5"; known: C6, C8, C10, D7.a, D7.b, D7.total, D9.a, D9.b, D9.total, mu.a, mu.b, mu.total\n');
   });
 });
 

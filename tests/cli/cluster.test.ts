@@ -32,8 +32,10 @@ describe('dispole cluster --json contract', () => {
       expect(typeof c.label).toBe('string');
       expect(c.position).toHaveLength(3);
       expect(c.dipole).toHaveLength(3);
-      expect(typeof c.C6).toBe('number');
-      expect(typeof c.alpha).toBe('number');
+      // names of our own: in cluster (screened) and isolated
+      for (const k of ['C6InCluster', 'C6Isolated', 'alphaInCluster', 'alphaIsolated']) expect(typeof c[k]).toBe('number');
+      expect(c.alpha).toBeUndefined();
+      expect(c.C6Free).toBeUndefined();
       for (let a = 0; a < 3; a++) expectClose(c.dipoleDebye[a], c.dipole[a] * DIPOLE_AU_IN_DEBYE, 1e-15, 1e-300);
     }
     expectClose(j.centres[1].position[0], 3.8 / BOHR_IN_ANGSTROM, 1e-15);
@@ -67,8 +69,12 @@ describe('dispole cluster output formats', () => {
   test('--csv prints a header and one row per centre', async () => {
     const { code, out } = await run(['cluster', 'ring.xyz', '--csv'], { 'ring.xyz': RING });
     expect(code).toBe(0);
-    const rows = out.trim().split('\n');
+    const all = out.trim().split('\n');
+    // the totals come first, as "#" lines
+    expect(all.filter((l) => l.startsWith('#')).map((l) => l.split(':')[0])).toEqual(expect.arrayContaining(['# energy.manyBody', '# energy.pairwise', '# energy.nonAdditive', '# dipole (e a0)']));
+    const rows = all.filter((l) => !l.startsWith('#'));
     expect(rows[0]).toMatch(/^label,species,x_bohr,y_bohr,z_bohr,mu_x_ea0/);
+    expect(rows[0]).toContain('alpha_in_cluster_a0^3,alpha_isolated_a0^3,C6_in_cluster_Eh_a0^6,C6_isolated_Eh_a0^6');
     expect(rows).toHaveLength(8);
     expect(rows[1].split(',')).toHaveLength(rows[0].split(',').length);
   });
@@ -83,7 +89,7 @@ describe('dispole cluster input errors', () => {
   const cases: Array<[string, string, string[], RegExp]> = [
     ['unknown label', '2\n\nQuelon 0 0 0\nArgon 0 0 4\n', [], /g\.xyz:4: label "Argon" is not a known species; give --assign Argon=SPEC/],
     ['malformed line', '2\n\nQuelon 0 0 0\nVirid 0 0\n', [], /g\.xyz:4: expected "label x y z" \(4 fields\), got 3/],
-    ['overlapping centres', '2\n\nQuelon 0 0 0\nVirid 0 0 0.5\n', [], /line 4 \(Virid\): centre Virid overlaps centre Quelon on line 3/],
+    ['overlapping centres', '2\n\nQuelon 0 0 0\nVirid 0 0 0.5\n', [], /g\.xyz: line 4 \(Virid\): centre Virid overlaps centre Quelon on line 3/],
     ['assignment to a missing label', '1\n\nQuelon 0 0 0\n', ['--assign', 'Y=Virid'], /--assign Y: no centre of g\.xyz has the label "Y"/],
     ['bad assignment', '1\n\nQuelon 0 0 0\n', ['--assign', 'Y'], /expected LABEL=SPEC/],
     ['bad species in an assignment', '1\n\nY 0 0 0\n', ['--assign', 'Y=drude:q=-1,m=1,w=1'], /q: must be a finite number > 0, got -1/],

@@ -13,12 +13,14 @@ async function run(argv: string[], files: Record<string, string> = {}) {
 // Quelon and Virid are the invented demo species (src/model/builtin-species.ts)
 describe('dispole density', () => {
   test('writes a two-panel SVG map and a JSON summary; each negative end points to the partner', async () => {
-    const { code, out, files } = await run(['density', 'Quelon', 'Virid', '--R', '6', '--svg', 'rho.svg', '--grid', '61', '--json']);
+    const { code, out, files } = await run(['density', 'Quelon', 'Virid', '--R', '6', '--svg', 'rho.svg', '--grid', '61', '--json', '--length', 'bohr', '--order', '3']);
     expect(code).toBe(0);
     const svg = files['rho.svg'] as string;
-    expect(svg.match(/<image [^>]*href="data:image\/png;base64,/g)).toHaveLength(2);
-    expect(svg).toContain('A = Quelon');
-    expect(svg).toContain('B = Virid');
+    // a vector map (no embedded raster), both centres named
+    expect(svg).not.toMatch(/<image /);
+    expect(svg.match(/<rect /g)!.length).toBeGreaterThan(50);
+    expect(svg).toContain('centre A = Quelon');
+    expect(svg).toContain('centre B = Virid');
     expect(svg).toMatch(/z − z<tspan[^>]*>A<\/tspan>/);
     const j = JSON.parse(out);
     expect(j.trusted).toBe(true);
@@ -32,8 +34,8 @@ describe('dispole density', () => {
     expectClose(j.densityChange.a.isolatedPeak, ((0.38 * 0.72) / Math.PI) ** 1.5, 1e-13);
   });
   test('the same R in ångström gives the same state; the text summary names the file', async () => {
-    const bohr = JSON.parse((await run(['density', 'Quelon', 'Virid', '--R', '6', '--svg', 'a.svg', '--grid', '41', '--json'])).out);
-    const ang = await run(['density', 'Quelon', 'Virid', '--R', String(6 * 0.529177210903), '--length', 'angstrom', '--svg', 'b.svg', '--grid', '41']);
+    const bohr = JSON.parse((await run(['density', 'Quelon', 'Virid', '--R', '6', '--svg', 'a.svg', '--grid', '41', '--json', '--length', 'bohr', '--order', '3'])).out);
+    const ang = await run(['density', 'Quelon', 'Virid', '--R', String(6 * 0.529177210903), '--length', 'angstrom', '--svg', 'b.svg', '--grid', '41', '--digits', '12', '--order', '3']);
     expect(ang.code).toBe(0);
     expect(ang.out).toMatch(/^Pair Quelon – Virid at R = 3\.1751 Å/);
     expect(ang.out).toMatch(/wrote b\.svg/);
@@ -42,14 +44,14 @@ describe('dispole density', () => {
     expect(ang.files['b.svg'] as string).toContain('Å');
   });
   test('a separation inside the polarisation catastrophe still draws, marked UNTRUSTED (exit 3)', async () => {
-    const { code, out, files } = await run(['density', 'Quelon', 'Virid', '--R', '2.4', '--svg', 'c.svg', '--grid', '41']);
+    const { code, out, files } = await run(['density', 'Quelon', 'Virid', '--R', '2.4', '--svg', 'c.svg', '--grid', '41', '--length', 'bohr', '--order', '3']);
     expect(code).toBe(3);
     expect(out).toMatch(/UNTRUSTED: .*polarisation-catastrophe distance/);
     expect(files['c.svg'] as string).toContain('UNTRUSTED');
   });
   test.each([
     [['--svg', 'x.svg'], /required option '--R <distance>' not specified/],
-    [['--R', '6'], /required option '--svg <file>' not specified/],
+    [['--R', '6', '--pretty'], /--pretty: applies to JSON output only/],
     [['--R', '-1', '--svg', 'x.svg'], /--R <distance>' argument '-1' is invalid\. must be a finite number > 0/],
     [['--R', '6', '--svg', 'x.svg', '--grid', '7'], /--grid <n>' argument '7' is invalid\. must be an integer from 41 to 401/],
   ])('bad input %j: exit 2 with the option named, nothing printed, no file', async (extra, message) => {

@@ -59,7 +59,7 @@ describe('dispole derive', () => {
     const q = await run(['derive', 'C9']);
     expect(q.code).toBe(2);
     expect(q.out).toBe('');
-    expect(q.err).toBe('dispole: error: quantities: unknown quantity "C9"; known: C6, C8, C10, D7.a, D7.b, D7.total, mu.a, mu.b, mu.total\n');
+    expect(q.err).toBe('dispole: error: quantities: unknown quantity "C9"; known: C6, C8, C10, D7.a, D7.b, D7.total, D9.a, D9.b, D9.total, mu.a, mu.b, mu.total\n');
     const v = await run(['derive', '--in', 'beta']);
     expect(v.code).toBe(2);
     expect(v.err).toContain('must be one of mass, alpha, got "beta"');

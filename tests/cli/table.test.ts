@@ -50,10 +50,10 @@ describe('dispole table: rows and order', () => {
     expect(j.rows).toHaveLength(6);
     for (const row of j.rows) {
       const p = JSON.parse((await run(['pair', row.a, row.b, '--json'])).out);
-      expect({ C6: row.C6, C8: row.C8, C10: row.C10, D7: row.D7 }).toEqual(p.coefficients);
+      expect({ C6: row.C6, C8: row.C8, C10: row.C10, D7: row.D7, D9: row.D9 }).toEqual(p.coefficients);
       expect(row.spread).toBe(p.spread.max);
       expect(row.trusted).toBe(p.trusted);
-      expect(row.routes).toEqual(p.routes.map((r: { name: string }) => r.name));
+      expect(row.routes).toEqual(p.routes.filter((r: { skipped?: boolean }) => !r.skipped).map((r: { name: string }) => r.name));
     }
   });
 
@@ -118,7 +118,7 @@ describe('dispole table --out', () => {
     const r = await run(['table', 'Quelon', 'Virid', '--csv', '--out', 't.csv']);
     expect(r.code).toBe(0);
     expect(r.out).toBe('');
-    expect(r.err).toBe('dispole: table of 3 pairs written to t.csv\n');
+    expect(r.err).toBe('dispole: wrote the table of 3 pairs to t.csv\n');
     expect(r.files['t.csv']).toBe((await run(['table', 'Quelon', 'Virid', '--csv'])).out);
     expect((await run(['table', 'Quelon', '--out', 'u.txt', '--quiet'])).err).toBe('');
   });
@@ -172,7 +172,7 @@ describe('dispole table: bad input → exit 2, message on stderr, nothing on std
     [['table', 'Quelon', 'Virid', '--pairs', 'Quelon-Nobody'], 'dispole: error: --pairs entry "Quelon-Nobody": "Nobody" is not a species of this table; use a name (Quelon, Virid) or a position 1…2\n'],
     [['table'], 'dispole: error: species: none given; name them (e.g. dispole table Quelon Virid), give --species FILE, or list --pairs\n'],
     [['table', 'Quelon', 'quelon'], 'dispole: error: species: "Quelon" is listed twice; list each species once\n'],
-    [['table', 'Quelon', '--csv', '--json'], "error: option '--csv' cannot be used with option '--json'"],
+    [['table', 'Quelon', '--csv', '--json'], 'dispole: error: --csv: cannot be combined with --json (choose one output format)\n'],
     [['table', 'Quelon', '--digits', '1'], 'must be an integer from 2 to 17, got "1"'],
     [['table', 'Quelon', '--units', 'cgs'], 'must be one of atomic, si, got "cgs"'],
     [['table', 'Quelon', '--routes', 'perturbation,guess'], 'dispole: error: routes: unknown route "guess"; known: perturbation, response'],

@@ -23,7 +23,7 @@ const exactHH = isotropicResponseCoefficients(hydrogen, hydrogen);
 describe('atom library', () => {
   test('every library QDO reproduces its published alpha, C6 and C8 by both routes (Yan et al. 1996; Tang & Toennies 2003; see atom-library.ts)', () => {
     for (const a of ATOM_LIBRARY) {
-      const s = resolveSpecies(a.symbol);
+      const s = resolveSpecies(`${a.symbol}-qdo`);
       expect(s.kind).toBe('drude');
       const pair = computePair(s, s);
       expect(pair.trusted).toBe(true);
@@ -36,8 +36,8 @@ describe('atom library', () => {
     const he = resolveSpecies('He');
     expectClose(computePair(he, he).coefficients.C6, 1.460977837725, 1e-12);
   });
-  test('mixed pairs He–Ar and Ne–Xe run with all default routes agreeing', () => {
-    for (const [a, b] of [['He', 'Ar'], ['Ne', 'Xe'], ['H', 'Kr']]) {
+  test('mixed pairs of the fitted QDOs He-qdo–Ar-qdo and Ne-qdo–Xe-qdo run with all default routes agreeing', () => {
+    for (const [a, b] of [['He-qdo', 'Ar-qdo'], ['Ne-qdo', 'Xe-qdo'], ['H', 'Kr-qdo']]) {
       const pair = computePair(resolveSpecies(a), resolveSpecies(b));
       expect(pair.trusted).toBe(true);
       expect(pair.spread.max).toBeLessThan(1e-9);

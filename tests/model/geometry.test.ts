@@ -32,7 +32,6 @@ describe('parseXyz', () => {
     ['2\nc\nX 0 0 0\n', 'g.xyz:4', /centre 2 of 2.*end of the file/],
     ['2\nc\nX 0 0 0\n\nY 1 1 1\n', 'g.xyz:4', /centre 2 of 2.*empty line/],
     ['1\nc\nX 0 0\n', 'g.xyz:3', /4 fields\), got 3/],
-    ['1\nc\nX 0 0 0 7\n', 'g.xyz:3', /4 fields\), got 5/],
     ['1\nc\nX 0 zero 0\n', 'g.xyz:3', /y coordinate "zero" is not a number/],
     ['1\nc\n1.0 0 0 0\n', 'g.xyz:3', /expected a label first/],
     ['1\nc\nX 0 0 0\nY 1 1 1\n', 'g.xyz:4', /unexpected content after the 1 centres/],
@@ -42,5 +41,25 @@ describe('parseXyz', () => {
     const e = errorOf(() => parseXyz(text, { fileName: 'g.xyz' }));
     expect(e.field).toBe(where);
     expect(e.problem).toMatch(message);
+  });
+});
+
+describe('parseXyz at scale and with extended XYZ lines', () => {
+  test('a fifth column (extended XYZ files carry one) is accepted and ignored', () => {
+    const g = parseXyz('2\nc\nX 0 0 0 0.5\nY 0 0 3 -0.5\n', { fileName: 'g.xyz', unit: 'bohr' });
+    expect(g.centres.map((c) => c.position)).toEqual([[0, 0, 0], [0, 0, 3]]);
+  });
+
+  test('the coincidence check finds a close pair among 50 000 centres (grid scan, not all pairs)', () => {
+    // a 50 000-centre lattice with spacing 2 bohr and one centre moved onto its neighbour (0.0005 bohr away)
+    const N = 50_000;
+    const lines = ['' + N, 'lattice'];
+    for (let k = 0; k < N; k++) lines.push(`X ${2 * (k % 100)} ${2 * (Math.floor(k / 100) % 100)} ${2 * Math.floor(k / 10_000)}`);
+    const clean = parseXyz(lines.join('\n'), { unit: 'bohr' });
+    expect(clean.centres).toHaveLength(N);
+    lines[2 + N - 1] = 'X 2.0005 0 0';
+    const e = errorOf(() => parseXyz(lines.join('\n'), { fileName: 'g.xyz', unit: 'bohr' }));
+    expect(e.field).toBe(`g.xyz:${N + 2}`);
+    expect(e.problem).toMatch(/coincides with centre X on line 4 \(5\.00e-4 bohr apart\)/);
   });
 });

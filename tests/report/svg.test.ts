@@ -47,11 +47,11 @@ describe('scales', () => {
 });
 
 describe('colour map', () => {
-  test('diverging: white at zero, blue for loss, red for gain, symmetric in brightness at the ends', () => {
-    expect(divergingRgb(0)).toEqual([250, 250, 250]);
+  test('diverging (house style): paper tone at zero, violet for loss, olive-gold for gain, clamped beyond ±1', () => {
+    expect(divergingRgb(0)).toEqual([247, 243, 234]);
     const [r1, , b1] = divergingRgb(1), [r2, , b2] = divergingRgb(-1);
-    expect(r1).toBeGreaterThan(b1);
-    expect(b2).toBeGreaterThan(r2);
+    expect(r1).toBeGreaterThan(b1); // gain: warm
+    expect(b2).toBeGreaterThan(r2); // loss: cool
     expect(divergingRgb(5)).toEqual(divergingRgb(1));
   });
 });

@@ -2,9 +2,12 @@
 import type { Command } from 'commander';
 import { densityChange, type DensityMap } from '../../engines/exact/density.js';
 import { exactSolver } from '../../engines/exact/exact-solver.js';
+import { defaultExactOrder, orderCompleteness, sphericalPair } from '../../engines/exact/series-terms.js';
 import type { DrudeSpecies } from '../../model/drude.js';
 import { bohrToAngstrom } from '../../model/units.js';
-import { sig } from '../../report/format.js';
+import { sig, sigDigits } from '../../report/format.js';
+import { InputError } from '../../model/errors.js';
+import { addSharedOptions, chooseFormat, emitOutput, jsonText, notice } from '../shared-options.js';
 import { unitName } from '../../report/curve-report.js';
 import { densityFigure, type DensityPanel } from '../../report/svg/density-figure.js';
 import { integerIn, positiveNumber, SPECIES_TOKEN_HELP } from '../common.js';
@@ -14,9 +17,9 @@ import { EXIT } from '../exit-codes.js';
 
 interface DensityFlags extends ExactFlags {
   R: number;
-  svg: string;
+  svg?: string;
   grid: number;
-  json?: boolean;
+  digits: number;
 }
 
 /** Largest gain and loss of a map and where they are (bohr, relative to the centre). */
@@ -38,20 +41,26 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
     .description(
       'Solve the pair at separation R (A at the origin, B at +R on z) and draw, for each centre, the change of its ' +
         'Drude-particle density (interacting minus isolated ground state) in the plane containing the axis: ' +
-        'red where the particle gains density, blue where it loses it. Prints a summary (--json for JSON).\n\n' +
+        'one colour family where the particle gains density, another where it loses it, both panels on one shared scale. ' +
+        'Prints a summary; --csv and --json export the grids (--json with the summary).\n\n' +
         `Each of A, B is ${SPECIES_TOKEN_HELP}.`,
     )
     .argument('<A>', 'species at the origin')
     .argument('<B>', 'species at +R on z')
     .requiredOption('--R <distance>', 'separation (in --length units)', positiveNumber)
-    .requiredOption('--svg <file>', 'write the figure to FILE')
-    .option('--grid <n>', 'grid points per side of each map', integerIn(41, 401), 161)
-    .option('--json', 'print the summary as one JSON object');
-  exactOptions(cmd).action((a: string, b: string, flags: DensityFlags) => {
+    .option('--svg <file>', 'write the figure to FILE')
+    .option('--grid <n>', 'grid points per side of each map', integerIn(41, 401), 161);
+  exactOptions(cmd);
+  addSharedOptions(cmd, ['digits', 'csv', 'json', 'pretty', 'out', 'force', 'quiet']);
+  cmd.action((a: string, b: string, flags: DensityFlags) => {
+    const format = chooseFormat(flags, ['text', 'csv', 'json']);
+    if (flags.svg !== undefined && flags.svg === flags.out) throw new InputError('--svg', 'names the same file as --out');
     const [A, B] = exactPair(ctx, [a, b], flags.species);
     const R = toBohr(flags.R, flags.length);
-    const state = exactSolver(A, B, { order: flags.order, tolerance: flags.tolerance, maxQuanta: flags.maxQuanta }).solve(R);
+    const state = exactSolver(A, B, { order: flags.order ?? defaultExactOrder(A, B), tolerance: flags.basisTol, maxQuanta: flags.totalQuanta }).solve(R);
     const p = state.point;
+    // a user-chosen order below the default: say what the dipoles and energy printed here lack
+    const orderNotes = orderCompleteness(state.model.order, sphericalPair(A, B)).notes;
     const unit = unitName(flags.length);
     const len = (x: number) => (flags.length === 'bohr' ? x : bohrToAngstrom(x));
     const maps = (['a', 'b'] as const).map((c) => {
@@ -78,22 +87,27 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
       `Exact ground state, multipole order ${state.model.order}: basis ${p.quanta} quanta, dimension ${p.dimension} (${p.fullDimension} without the L_{z} = 0 and mirror reduction).`,
       `Induced dipoles μ_{A,z} = ${sig(p.muA, 5)} e a_{0}, μ_{B,z} = ${sig(p.muB, 5)} e a_{0}; interaction energy ${sig(p.energy, 5)} E_{h}. Dotted: half maximum of the isolated density.`,
       ...(status ? [status.length > 150 ? status.slice(0, 147) + '…' : status] : []),
+      ...(orderNotes.length ? [`FLAGGED: multipole order ${state.model.order} is below the default; see the text report.`] : []),
     ];
     const separation = `R = ${sig(flags.R, 5)} ${unit}`;
-    const svg = densityFigure({
-      title: `Change of the Drude-particle densities, ${A.name} – ${B.name} at ${separation} (plane y = 0)`,
-      panels,
-      lengthUnit: unit,
-      densityUnit: flags.length === 'bohr' ? 'a_{0}^{-3}' : 'Å^{-3}',
-      separation,
-      footer,
-    });
-    ctx.io.writeFile(flags.svg, svg, flags.force);
+    if (flags.svg !== undefined) {
+      const svg = densityFigure({
+        title: `Change of the Drude-particle densities, ${A.name} – ${B.name} at ${separation} (plane y = 0)`,
+        panels,
+        lengthUnit: unit,
+        densityUnit: flags.length === 'bohr' ? 'a_{0}^{-3}' : 'Å^{-3}',
+        separation,
+        footer,
+      });
+      ctx.io.writeFile(flags.svg, svg, flags.force);
+      notice(ctx, flags, `wrote the figure to ${flags.svg}`);
+    }
+    const densityUnit = flags.length === 'bohr' ? 'a0^-3' : 'angstrom^-3';
     const summary = {
       R: flags.R,
       R_bohr: R,
       unit: flags.length,
-      hamiltonian: { multipoleOrder: state.model.order },
+      hamiltonian: { multipoleOrder: state.model.order, ...(orderNotes.length ? { incomplete: orderNotes } : {}) },
       basis: { quanta: p.quanta, dimension: p.dimension, dimensionUnreduced: p.fullDimension, residual: p.residual },
       muA: p.muA,
       muB: p.muB,
@@ -102,17 +116,32 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
       converged: p.converged,
       trusted: p.trusted,
       reasons: p.reasons,
-      svg: flags.svg,
+      ...(flags.svg !== undefined ? { svg: flags.svg } : {}),
     };
-    if (flags.json) ctx.io.stdout(JSON.stringify(summary) + '\n');
-    else {
-      const lines = [`Pair ${A.name} – ${B.name} at ${separation}: exact ground state through multipole order ${state.model.order}`, `  basis ${p.quanta} quanta, dimension ${p.dimension} (${p.fullDimension} unreduced), residual ${p.residual.toExponential(1)} Eh`, `  mu_A,z = ${sig(p.muA)} e a0, mu_B,z = ${sig(p.muB)} e a0, E_int = ${sig(p.energy)} Eh`];
+    let text: string;
+    if (format === 'json') {
+      const grid = (d: DensityPanel) => ({ x: Array.from(d.x), z: Array.from(d.z), change: Array.from(d.change) });
+      text = jsonText({ ...summary, grid: { units: { length: flags.length, density: densityUnit }, layout: 'change[i * z.length + j] at (x[i], z[j]), relative to the centre', a: grid(panels[0]), b: grid(panels[1]) } }, flags);
+    } else if (format === 'csv') {
+      const lines = [
+        `# dispole: change of the Drude-particle density, ${A.name} – ${B.name} at ${separation}, plane y = 0; x across and z along the axis, relative to each centre`,
+        `# trusted: ${p.trusted}${p.trusted ? '' : ` (${p.reasons.join('; ')})`}`,
+        `centre,x_${flags.length},z_${flags.length},delta_rho_${densityUnit.replace('^', '')}`,
+      ];
+      for (const d of panels)
+        for (let i = 0; i < d.x.length; i++) for (let j = 0; j < d.z.length; j++) lines.push(`${d.label},${d.x[i]},${d.z[j]},${d.change[i * d.z.length + j]}`);
+      text = lines.join('\n') + '\n';
+    } else {
+      const f = (x: number) => sigDigits(x, flags.digits);
+      const lines = [`Pair ${A.name} – ${B.name} at ${separation}: exact ground state through multipole order ${state.model.order}`, `  basis ${p.quanta} quanta, dimension ${p.dimension} (${p.fullDimension} unreduced), residual ${sigDigits(p.residual, 2, 'exponent')} Eh`, `  mu_A,z = ${f(p.muA)} e a0, mu_B,z = ${f(p.muB)} e a0, E_int = ${f(p.energy)} Eh`];
       for (const [k, e] of [['A', summary.densityChange.a], ['B', summary.densityChange.b]] as const)
-        lines.push(`  ${k}: largest gain ${sig(e.gain.value, 4)} a0^-3 at (x, z) = (${sig(e.gain.x, 3)}, ${sig(e.gain.z, 3)}) bohr, largest loss ${sig(e.loss.value, 4)} a0^-3 at (${sig(e.loss.x, 3)}, ${sig(e.loss.z, 3)}) bohr; isolated peak ${sig(e.isolatedPeak, 4)} a0^-3`);
-      lines.push(`  wrote ${flags.svg}`);
+        lines.push(`  ${k}: largest gain ${f(e.gain.value)} a0^-3 at (x, z) = (${f(e.gain.x)}, ${f(e.gain.z)}) bohr, largest loss ${f(e.loss.value)} a0^-3 at (${f(e.loss.x)}, ${f(e.loss.z)}) bohr; isolated peak ${f(e.isolatedPeak)} a0^-3`);
+      if (flags.svg !== undefined) lines.push(`  wrote ${flags.svg}`);
       if (!p.trusted) lines.push(`UNTRUSTED: ${p.reasons.join('; ')}`);
-      ctx.io.stdout(lines.join('\n') + '\n');
+      for (const n of orderNotes) lines.push(`warning: ${n}`);
+      text = lines.join('\n') + '\n';
     }
+    emitOutput(ctx, flags, text, 'the density summary');
     if (!p.trusted) ctx.exitCode = EXIT.untrusted;
   });
 }

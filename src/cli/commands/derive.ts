@@ -5,13 +5,15 @@ import type { PairLayout } from '../../engines/symbolic/symbols.js';
 import { derivedToJson, derivedToText } from '../../report/symbolic-report.js';
 import { oneOf } from '../common.js';
 import type { CommandContext } from '../context.js';
+import { deriveSurfaceQuantities, parseSurfaceQuantity, SURFACE_QUANTITIES } from '../../engines/symbolic/symbolic-surface.js';
+import { surfaceDerivedToJson, surfaceDerivedToText } from '../../report/surface-report.js';
+import { addSharedOptions, chooseFormat, emitOutput, jsonText, type OutputFlags } from '../shared-options.js';
 
-interface DeriveFlags {
-  latex?: boolean;
-  json?: boolean;
+interface DeriveFlags extends OutputFlags {
   in: VariableSet;
   identical?: boolean;
   anisotropic?: boolean;
+  surface?: boolean;
 }
 
 /** The layout options shared by `derive` and `check`. */
@@ -23,7 +25,7 @@ export const IDENTICAL_HELP = 'the same species on both centres (names q, m, w, 
 export const ANISOTROPIC_HELP = 'frequencies along the lab axes (names wax, way, waz, wbx, …; C6 and D7 only)';
 
 export function registerDerive(program: Command, ctx: CommandContext): void {
-  program
+  const cmd = program
     .command('derive')
     .summary('exact closed forms of C6, C8, C10 and D7 for quantum Drude oscillator pairs')
     .description(
@@ -34,15 +36,25 @@ export function registerDerive(program: Command, ctx: CommandContext): void {
     )
     .argument('[quantities...]', 'quantities to derive (space- or comma-separated)')
     .option('--latex', 'print LaTeX equations instead of plain text')
-    .option('--json', 'print one JSON object with text and LaTeX of every quantity')
     .option('--in <variables>', 'write the results in q, m, w ("mass") or in q, alpha, w ("alpha", alpha = q²/(m w²))', oneOf(['mass', 'alpha'] as const), 'mass')
     .option('--identical', IDENTICAL_HELP)
     .option('--anisotropic', ANISOTROPIC_HELP)
-    .action((tokens: string[], flags: DeriveFlags) => {
-      const layout = layoutOf(flags);
+    .option('--surface', `one oscillator in front of a perfect conductor instead of a pair: ${SURFACE_QUANTITIES.join(', ')} (z from the surface to the atom)`);
+  addSharedOptions(cmd, ['json', 'pretty', 'out', 'force', 'quiet']);
+  cmd.action((tokens: string[], flags: DeriveFlags) => {
+    const format = chooseFormat(flags, ['text', 'latex', 'json']);
+    if (flags.surface) {
       const words = tokens.flatMap((t) => t.split(',')).map((t) => t.trim()).filter(Boolean);
-      const names = words.length ? [...new Set(words.map((w) => parseQuantityName('quantities', w, layout)))] : defaultQuantities(layout);
-      const derived = deriveQuantities(layout, names, flags.in);
-      ctx.io.stdout(flags.json ? JSON.stringify(derivedToJson(layout, derived)) + '\n' : derivedToText(layout, derived, flags.latex ? 'latex' : 'text'));
-    });
+      const names = words.length ? [...new Set(words.map((w) => parseSurfaceQuantity('quantities', w)))] : [...SURFACE_QUANTITIES];
+      const anisotropic = Boolean(flags.anisotropic);
+      const derived = deriveSurfaceQuantities(names, anisotropic);
+      emitOutput(ctx, flags, format === 'json' ? jsonText(surfaceDerivedToJson(derived, anisotropic), flags) : surfaceDerivedToText(derived, anisotropic, format === 'latex' ? 'latex' : 'text'), 'the closed forms');
+      return;
+    }
+    const layout = layoutOf(flags);
+    const words = tokens.flatMap((t) => t.split(',')).map((t) => t.trim()).filter(Boolean);
+    const names = words.length ? [...new Set(words.map((w) => parseQuantityName('quantities', w, layout)))] : defaultQuantities(layout);
+    const derived = deriveQuantities(layout, names, flags.in);
+    emitOutput(ctx, flags, format === 'json' ? jsonText(derivedToJson(layout, derived), flags) : derivedToText(layout, derived, format === 'latex' ? 'latex' : 'text'), 'the closed forms');
+  });
 }

@@ -2,24 +2,25 @@
 import type { Command } from 'commander';
 import { computePair } from '../../engines/pair.js';
 import { defaultRoutes, routeNames } from '../../engines/routes.js';
-import { pairToJson, pairToText, type UnitSystem } from '../../report/pair-report.js';
-import { integerIn, loadSpeciesFile, oneOf, positiveNumber, resolveAll, SPECIES_FILE_HELP, SPECIES_TOKEN_HELP } from '../common.js';
+import { pairToCsv, pairToJson, pairToText, type UnitSystem } from '../../report/pair-report.js';
+import { loadSpeciesFile, resolveAll, SPECIES_TOKEN_HELP } from '../common.js';
 import type { CommandContext } from '../context.js';
 import { EXIT } from '../exit-codes.js';
+import { addSharedOptions, chooseFormat, emitOutput, jsonText, type OutputFlags } from '../shared-options.js';
 
-interface PairFlags {
-  json?: boolean;
+interface PairFlags extends OutputFlags {
   units: UnitSystem;
-  species?: string;
+  species?: string[];
   routes?: string;
   digits: number;
-  agree: number;
-  maxQuanta?: number;
+  agreementTol: number;
+  quadratureTol: number;
+  quantaPerCentre?: number;
   exact?: boolean;
 }
 
 export function registerPair(program: Command, ctx: CommandContext): void {
-  program
+  const cmd = program
     .command('pair')
     .summary('coefficients C6, C8, C10 and dispersion dipoles D7 of one pair, by every route')
     .description(
@@ -29,25 +30,24 @@ export function registerPair(program: Command, ctx: CommandContext): void {
     )
     .argument('<A>', 'species at the origin')
     .argument('<B>', 'species at +R on z')
-    .option('--json', 'print one JSON object (atomic units)')
-    .option('--units <system>', 'atomic, or si to add SI and debye·Å^7 values', oneOf(['atomic', 'si'] as const), 'atomic')
-    .option('--species <file>', SPECIES_FILE_HELP)
     .option('--routes <list>', `comma-separated routes to run, first = reference (known: ${routeNames().join(', ')})`)
-    .option('--digits <n>', 'significant digits in the table', integerIn(3, 17), 10)
-    .option('--agree <x>', 'largest relative spread between routes accepted as agreement', positiveNumber, 1e-8)
-    .option('--exact', 'also run the "exact" route (finite-R diagonalisation fitted in 1/R; about a second)')
-    .option('--max-quanta <n>', 'harmonic truncation of QDO bases (perturbation route); default: the exact minimum', integerIn(1, 40))
-    .action((a: string, b: string, flags: PairFlags) => {
-      const file = loadSpeciesFile(ctx.io, flags.species);
-      const [A, B] = resolveAll([a, b], file);
-      const listed = flags.routes?.split(',').map((s) => s.trim()).filter(Boolean);
-      const routes = flags.exact ? [...new Set([...(listed ?? defaultRoutes.map((r) => r.name)), 'exact'])] : listed;
-      const result = computePair(A, B, {
-        routes,
-        agreement: flags.agree,
-        maxQuanta: flags.maxQuanta,
-      });
-      ctx.io.stdout(flags.json ? JSON.stringify(pairToJson(result, flags.units)) + '\n' : pairToText(result, { digits: flags.digits, units: flags.units }));
-      if (!result.trusted) ctx.exitCode = EXIT.untrusted;
+    .option('--exact', 'also run the "exact" route (finite-R diagonalisation fitted in 1/R; about a second)');
+  addSharedOptions(cmd, ['species', 'units', 'digits', 'agreementTol', 'quadratureTol', 'quantaPerCentre', 'csv', 'json', 'pretty', 'out', 'force', 'quiet']);
+  cmd.action((a: string, b: string, flags: PairFlags) => {
+    const format = chooseFormat(flags, ['text', 'csv', 'json']);
+    const file = loadSpeciesFile(ctx.io, flags.species);
+    const [A, B] = resolveAll([a, b], file);
+    const listed = flags.routes?.split(',').map((s) => s.trim()).filter(Boolean);
+    const routes = flags.exact ? [...new Set([...(listed ?? defaultRoutes.map((r) => r.name)), 'exact'])] : listed;
+    const result = computePair(A, B, {
+      routes,
+      agreement: flags.agreementTol,
+      relTol: flags.quadratureTol,
+      maxQuanta: flags.quantaPerCentre,
     });
+    const text =
+      format === 'json' ? jsonText(pairToJson(result, flags.units), flags) : format === 'csv' ? pairToCsv(result, flags.units) : pairToText(result, { digits: flags.digits, units: flags.units });
+    emitOutput(ctx, flags, text, `the pair ${A.name}–${B.name}`);
+    if (!result.trusted) ctx.exitCode = EXIT.untrusted;
+  });
 }

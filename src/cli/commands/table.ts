@@ -1,117 +1,123 @@
 /** `dispole table [SPECIES...]`: C6, C8 and D7 of many pairs as one table (text, CSV, JSON, Markdown or LaTeX). */
-import { Option, type Command } from 'commander';
-import cliProgress from 'cli-progress';
+import type { Command } from 'commander';
 import { allPairs, computeTable, requireDistinctSpecies, selectPairs, untrustedCount, type CoefficientTable } from '../../engines/table.js';
 import { routeNames } from '../../engines/routes.js';
 import { resolveSpecies } from '../../model/builtin-species.js';
 import { InputError } from '../../model/errors.js';
 import type { UnitSystem } from '../../report/pair-report.js';
-import { renderTable, type TableFormat } from '../../report/table/index.js';
-import { integerIn, loadSpeciesFile, oneOf, positiveNumber, resolveAll, SPECIES_FILE_HELP, SPECIES_TOKEN_HELP } from '../common.js';
+import { renderTable, tableToJson } from '../../report/table/index.js';
+import { columnKeys, parseColumnList } from '../../report/table/columns.js';
+import { loadSpeciesFile, resolveAll, SPECIES_TOKEN_HELP } from '../common.js';
+import { addSharedOptions, chooseFormat, emitOutput, jsonText, type OutputFlags } from '../shared-options.js';
 import type { CommandContext } from '../context.js';
+import { countingProgressBar } from '../progress.js';
 import type { CliIO } from '../io.js';
 import { EXIT } from '../exit-codes.js';
+import { computeSurfaceTable } from '../../engines/surface/surface-table.js';
+import { parseSurfaceSpec, SURFACE_SPEC_HELP } from '../../model/surface-spec.js';
+import type { Species } from '../../model/species.js';
+import { renderSurfaceTable } from '../../report/table/surface-columns.js';
 
-interface TableFlags {
-  species?: string;
+interface TableFlags extends OutputFlags {
+  surface?: string;
+  species?: string[];
   pairs?: string[];
-  csv?: boolean;
-  json?: boolean;
-  markdown?: boolean;
-  latex?: boolean;
   units: UnitSystem;
   digits: number;
-  out?: string;
-  force?: boolean;
-  quiet?: boolean;
+  columns?: string;
   routes?: string;
-  agree: number;
-  relTol: number;
-  maxQuanta?: number;
+  agreementTol: number;
+  quadratureTol: number;
+  quantaPerCentre?: number;
 }
 
 /** Tables with at least this many pairs show a progress bar (on an interactive stderr, without --quiet). */
 export const PROGRESS_MIN_PAIRS = 100;
 
-const FORMAT_FLAGS = ['csv', 'json', 'markdown', 'latex'] as const;
-
 /**
  * A progress bar on stderr, or undefined when stderr is not a terminal, `quiet` is set or the table is small.
  * cli-progress draws synchronously on each update (throttled), so it works inside the synchronous pair loop.
  */
-export function progressBar(io: CliIO, total: number, quiet: boolean): { update(done: number): void; stop(): void } | undefined {
-  if (quiet || !io.stderrIsTTY || total < PROGRESS_MIN_PAIRS) return undefined;
-  const stream = { isTTY: true, columns: 80, write: (s: string) => (io.stderr(s), true) } as unknown as NodeJS.WriteStream;
-  const bar = new cliProgress.SingleBar({ stream, format: 'pairs {bar} {value}/{total}  {percentage}%', barsize: 30, clearOnComplete: true, hideCursor: false });
-  bar.start(total, 0);
-  return { update: (done) => bar.update(done), stop: () => bar.stop() };
-}
-
 export function registerTable(program: Command, ctx: CommandContext): void {
-  const format = (name: (typeof FORMAT_FLAGS)[number], what: string) =>
-    new Option(`--${name}`, what).conflicts(FORMAT_FLAGS.filter((f) => f !== name));
-  program
+  const cmd = program
     .command('table')
     .summary('C6, C8 and D7 of every pair of a set of species, as text, CSV, JSON, Markdown or LaTeX')
     .description(
       'Compute C6, C8 and the dispersion dipole coefficients D7 (A at the origin, B at +R on z) for every unordered pair ' +
         'of the species given, like pairs included, in the order given (or only the pairs of --pairs), and print one ' +
-        "table with the largest relative spread between the routes and each species' data source. Without SPECIES, a " +
-        '--species FILE contributes all its species in file order; with SPECIES, the file only supplies definitions.\n\n' +
+        "table with the largest relative spread between the routes and each species' data source. Without SPECIES, the " +
+        '--species files contribute all their species in file order; with SPECIES, the files only supply definitions.\n\n' +
         `Each species is ${SPECIES_TOKEN_HELP}.\n\n` +
-        'Exit code 3 when any row is UNTRUSTED (the table is still written, with those rows flagged).',
+        'Exit code 3 when any row is UNTRUSTED or NOT COMPUTED (no route can handle the pair); the table is still written, with those rows flagged.',
     )
     .argument('[species...]', 'the species of the table')
-    .option('--species <file>', SPECIES_FILE_HELP)
     .option(
       '--pairs <list>',
       'only these ordered pairs: entries A-B separated by commas (repeatable); A and B are names, 1-based positions in the species list, or built-in names',
       (value: string, previous: string[] = []) => [...previous, value],
     )
-    .addOption(format('csv', 'CSV with "#" provenance lines; full precision'))
-    .addOption(format('json', 'one JSON document (atomic units; full precision)'))
-    .addOption(format('markdown', 'a Markdown pipe table with provenance'))
-    .addOption(format('latex', 'a LaTeX table float using booktabs'))
-    .option('--units <system>', 'atomic, or si (C_n in J·m^n, D7 in C·m^8 and debye·Å^7)', oneOf(['atomic', 'si'] as const), 'atomic')
-    .option('--digits <n>', 'significant digits in text, Markdown and LaTeX', integerIn(2, 17), 6)
-    .option('--out <file>', 'write the table to FILE (atomically) instead of stdout')
-    .option('--force', 'replace an existing --out file')
-    .option('--quiet', 'no progress bar and no "written" notice on stderr')
+    .option('--markdown', 'a Markdown pipe table with provenance')
+    .option('--latex', 'a LaTeX table float using booktabs')
+    .option(
+      '--columns <list>',
+      `columns of the text, Markdown and LaTeX tables, comma-separated, from ${columnKeys('atomic').join(', ')} (with --units si also D7.a-debye, D7.b-debye, D7.total-debye); default: all for text and Markdown, C6,C8,D7.a,D7.b,spread,sources,status for LaTeX`,
+    )
     .option('--routes <list>', `comma-separated routes to run, first = reference (known: ${routeNames().join(', ')})`)
-    .option('--agree <x>', 'largest relative spread between routes accepted as agreement', positiveNumber, 1e-8)
-    .option('--rel-tol <x>', 'relative tolerance passed to the routes (quadratures)', positiveNumber, 1e-13)
-    .option('--max-quanta <n>', 'harmonic truncation of QDO bases (perturbation route); default: the exact minimum', integerIn(1, 40))
-    .action((names: string[], flags: TableFlags) => {
-      const file = loadSpeciesFile(ctx.io, flags.species);
-      const listed = names.length > 0 ? resolveAll(names, file) : [...(file?.values() ?? [])];
-      requireDistinctSpecies(listed);
-      const pairs = flags.pairs ? selectPairs(flags.pairs, listed, (t) => resolveSpecies(t, file)) : allPairs(listed);
-      if (pairs.length === 0) {
-        throw new InputError('species', 'none given; name them (e.g. dispole table Quelon Virid), give --species FILE, or list --pairs');
-      }
-      const bar = progressBar(ctx.io, pairs.length, flags.quiet === true);
-      let table: CoefficientTable;
-      try {
-        table = computeTable(pairs, {
-          routes: flags.routes?.split(',').map((s) => s.trim()).filter(Boolean),
-          agreement: flags.agree,
-          relTol: flags.relTol,
-          maxQuanta: flags.maxQuanta,
-          onProgress: bar ? (done) => bar.update(done) : undefined,
-        });
-      } finally {
-        bar?.stop(); // also on errors: the bar holds a timer that would keep the process alive
-      }
-      const chosen: TableFormat = FORMAT_FLAGS.find((f) => flags[f]) ?? 'text';
-      const text = renderTable(table, chosen, { units: flags.units, digits: flags.digits });
-      if (flags.out !== undefined) {
-        ctx.io.writeFile(flags.out, text, flags.force === true);
-        if (!flags.quiet) ctx.io.stderr(`dispole: table of ${table.rows.length} pairs written to ${flags.out}\n`);
-      } else ctx.io.stdout(text);
-      const bad = untrustedCount(table);
-      if (bad > 0) {
-        ctx.io.stderr(`dispole: ${bad} of ${table.rows.length} rows are UNTRUSTED (flagged in the table)\n`);
-        ctx.exitCode = EXIT.untrusted;
-      }
-    });
+    .option('--surface <spec>', `instead of pairs, each species in front of this surface: the surface column set C3, C5, D4 (${SURFACE_SPEC_HELP})`);
+  addSharedOptions(cmd, ['species', 'units', 'digits', 'agreementTol', 'quadratureTol', 'quantaPerCentre', 'csv', 'json', 'pretty', 'out', 'force', 'quiet']);
+  cmd.action((names: string[], flags: TableFlags) => {
+    const format = chooseFormat(flags, ['text', 'csv', 'json', 'markdown', 'latex']);
+    const columns = flags.columns !== undefined ? parseColumnList(flags.columns, flags.units) : undefined;
+    if (columns && (format === 'csv' || format === 'json')) throw new InputError('--columns', 'applies to the text, Markdown and LaTeX tables (CSV and JSON carry every column)');
+    const file = loadSpeciesFile(ctx.io, flags.species);
+    const listed = names.length > 0 ? resolveAll(names, file) : [...(file?.values() ?? [])];
+    requireDistinctSpecies(listed);
+    if (flags.surface !== undefined) {
+      surfaceTableAction(ctx, flags, format, listed);
+      return;
+    }
+    const pairs = flags.pairs ? selectPairs(flags.pairs, listed, (t) => resolveSpecies(t, file)) : allPairs(listed);
+    if (pairs.length === 0) {
+      throw new InputError('species', 'none given; name them (e.g. dispole table Quelon Virid), give --species FILE, or list --pairs');
+    }
+    const bar = countingProgressBar(ctx.io, { total: pairs.length, label: 'pairs', quiet: flags.quiet === true, minTotal: PROGRESS_MIN_PAIRS });
+    let table: CoefficientTable;
+    try {
+      table = computeTable(pairs, {
+        routes: flags.routes?.split(',').map((s) => s.trim()).filter(Boolean),
+        agreement: flags.agreementTol,
+        relTol: flags.quadratureTol,
+        maxQuanta: flags.quantaPerCentre,
+        onProgress: bar ? (done) => bar.update(done) : undefined,
+      });
+    } finally {
+      bar?.stop(); // also on errors: the bar holds a timer that would keep the process alive
+    }
+    const text = format === 'json' ? jsonText(tableToJson(table, { units: flags.units }), flags) : renderTable(table, format, { units: flags.units, digits: flags.digits, columns });
+    const total = table.rows.length + (table.uncomputed?.length ?? 0);
+    emitOutput(ctx, flags, text, `the table of ${total} pairs`);
+    const bad = untrustedCount(table);
+    if (bad > 0) ctx.io.stderr(`dispole: ${bad} of ${total} rows are UNTRUSTED (flagged in the table)\n`);
+    const missing = table.uncomputed?.length ?? 0;
+    if (missing > 0) ctx.io.stderr(`dispole: ${missing} of ${total} pairs are NOT COMPUTED: no route can handle them (flagged in the table)\n`);
+    if (bad > 0 || missing > 0) ctx.exitCode = EXIT.untrusted;
+  });
+}
+
+/** `table --surface SPEC`: one row per species in front of the surface (the surface column set). */
+function surfaceTableAction(ctx: CommandContext, flags: TableFlags, format: string, listed: Species[]): void {
+  if (flags.pairs) throw new InputError('--pairs', 'cannot be combined with --surface (a surface table has one row per species)');
+  if (flags.columns !== undefined) throw new InputError('--columns', 'does not apply to the surface column set (C3, C5, D4, spread, status, source)');
+  if (format === 'latex') throw new InputError('--latex', 'the surface column set is written as text, CSV, JSON or Markdown');
+  if (listed.length === 0) throw new InputError('species', 'none given; name them (e.g. dispole table Quelon Virid --surface conductor) or give --species FILE');
+  const surface = parseSurfaceSpec(flags.surface!, '--surface', (path) => ctx.io.readFile(path));
+  const table = computeSurfaceTable(listed, surface, {
+    routes: flags.routes?.split(',').map((s) => s.trim()).filter(Boolean),
+    agreement: flags.agreementTol,
+    relTol: flags.quadratureTol,
+  });
+  const text = renderSurfaceTable(table, format as 'text' | 'csv' | 'json' | 'markdown', { units: flags.units, digits: flags.digits });
+  emitOutput(ctx, flags, flags.pretty && format === 'json' ? jsonText(JSON.parse(text), flags) : text, `the surface table of ${listed.length} species`);
+  const bad = table.rows.filter((r) => r.status === 'UNTRUSTED').length + table.uncomputed.length;
+  if (bad > 0) ctx.exitCode = EXIT.untrusted;
 }

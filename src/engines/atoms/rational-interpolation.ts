@@ -10,7 +10,7 @@
  *   degree d, no poles on the real line, error O(h^(d+1)); the robust fallback when AAA's interpolant fails
  *   the pole checks (e.g. for noisy data).
  */
-import { Matrix, SingularValueDecomposition } from 'ml-matrix';
+import { mlMatrixModule } from '../../lazy-modules.js';
 
 /** A barycentric rational function. */
 export interface Barycentric {
@@ -54,6 +54,16 @@ export interface AaaResult extends Barycentric {
   residual: number;
 }
 
+/** max |y_i| (0 for no values) by a loop: spreading a large array into Math.max overflows the call stack. */
+export function maxAbs(y: ArrayLike<number>): number {
+  let m = 0;
+  for (let i = 0; i < y.length; i++) {
+    const a = Math.abs(y[i]);
+    if (a > m || Number.isNaN(a)) m = a;
+  }
+  return m;
+}
+
 /**
  * AAA rational interpolation of (x_i, y_i). `forced` indices start the support set (e.g. both ends of the
  * interval, so the interpolant is pinned there). Stops when the residual is below `tol` · max|y| or the
@@ -61,7 +71,7 @@ export interface AaaResult extends Barycentric {
  */
 export function aaa(x: ArrayLike<number>, y: ArrayLike<number>, forced: readonly number[] = [], tol = 1e-13): AaaResult {
   const M = x.length;
-  const ymax = Math.max(...Array.from(y, Math.abs)) || 1;
+  const ymax = maxAbs(y) || 1;
   const support: number[] = [];
   const rest = new Set(Array.from({ length: M }, (_, i) => i));
   let w = new Float64Array(0);
@@ -71,6 +81,7 @@ export function aaa(x: ArrayLike<number>, y: ArrayLike<number>, forced: readonly
     w,
   });
   const maxSupport = Math.max(forced.length + 1, Math.floor(M / 2));
+  const { Matrix, SingularValueDecomposition } = mlMatrixModule();
   const pick = (i: number) => {
     support.push(i);
     rest.delete(i);

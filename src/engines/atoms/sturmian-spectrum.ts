@@ -16,7 +16,8 @@
  * Radial integrals <n l|r^k|n' l'> are evaluated with a Gauss–Laguerre rule that is exact for the polynomial
  * degree involved, so they carry no quadrature error (only rounding).
  */
-import { CholeskyDecomposition, Matrix } from 'ml-matrix';
+import type { Matrix } from 'ml-matrix';
+import { mlMatrixModule } from '../../lazy-modules.js';
 import { symmetricEigen } from '../../math/symmetric-eigen.js';
 import { gaussLaguerre } from './laguerre-rule.js';
 
@@ -56,6 +57,7 @@ function basisValues(l: number, size: number, x: number): Float64Array {
 
 /** Inverse of a lower-triangular matrix (forward substitution). */
 function lowerInverse(L: Matrix): Matrix {
+  const { Matrix } = mlMatrixModule();
   const n = L.rows;
   const inv = Matrix.zeros(n, n);
   for (let c = 0; c < n; c++)
@@ -69,6 +71,7 @@ function lowerInverse(L: Matrix): Matrix {
 
 /** Energies and eigenvector values at the quadrature nodes for one l. */
 function solveChannel(Z: number, l: number, size: number, nodes: Float64Array): { energies: Float64Array; values: Float64Array[] } {
+  const { CholeskyDecomposition, Matrix } = mlMatrixModule();
   const lam = Z;
   const S = Matrix.zeros(size, size);
   for (let j = 0; j < size; j++) {

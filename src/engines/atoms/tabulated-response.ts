@@ -18,7 +18,7 @@
  */
 import type { OscillatorSpectrumSpecies, ResponseTableSpecies } from '../../model/response-data.js';
 import type { IsotropicResponse } from '../response/response-model.js';
-import { aaa, type Barycentric, evaluateBarycentric, floaterHormann, poleFree } from './rational-interpolation.js';
+import { aaa, type Barycentric, evaluateBarycentric, floaterHormann, maxAbs, poleFree } from './rational-interpolation.js';
 import { sig } from '../../model/number-text.js';
 
 /** Response of a data species, with what was assumed and how far the data reach. */
@@ -60,7 +60,7 @@ function interpolateMapped(u: readonly number[], f: readonly number[], s: number
     v[k + offset] = (s * s) / (s * s + uk * uk);
     y[k + offset] = f[n - 1 - k] / v[k + offset];
   }
-  const bound = 10 * Math.max(...Array.from(y, Math.abs));
+  const bound = 10 * maxAbs(y);
   const acceptable = (b: Barycentric) => poleFree(b, 0, 1, bound) && (!positive || samplesPositive(b));
   let b: Barycentric | undefined;
   let method = '';

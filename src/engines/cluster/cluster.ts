@@ -29,6 +29,7 @@ import { withWorkspace } from '../../math/thread-team.js';
 import { integrateSemiInfinite } from '../../math/semi-infinite-quadrature.js';
 import { coupledPairZeroPointShift } from '../force-balance/pair-force-balance.js';
 import { dipoleCouplingBlock, writeDipoleCouplingBlock } from './dipole-tensors.js';
+import { perturbationRoute } from '../perturbation/route.js';
 
 /** One centre of a cluster. */
 export interface ClusterCentre {
@@ -47,6 +48,8 @@ export interface ClusterOptions {
   relTol?: number;
   /** Progress of the long stages (fraction 0…1 of each stage). */
   progress?: (stage: ClusterStage, fraction: number) => void;
+  /** Memory the computation may use, bytes (default: the 4 GiB WebAssembly workspace limit only). */
+  memoryBytes?: number;
 }
 
 export interface ClusterCentreResult {
@@ -78,7 +81,15 @@ export interface ClusterResult {
   modes: { count: number; lowest: number; highest: number };
   /** The C6 quadrature's record. */
   quadrature: { evaluations: number; converged: boolean; largestRelativeError: number };
-  /** False when the C6 quadrature missed its tolerance. */
+  /**
+   * Pairs so far apart that their dipole is below the rounding level of the normal-mode covariance: how many,
+   * how many were computed from the pair's far-field term D7/R^7 instead (isotropic centres), and
+   * how many could not be (anisotropic centres: their dipoles are unresolved and the result is not converged).
+   */
+  farPairs: { count: number; series: number; unresolved: number };
+  /** Why the result is not converged or what was approximated, in words (empty when nothing to say). */
+  notes: string[];
+  /** False when the C6 quadrature missed its tolerance or far-pair dipoles are unresolved. */
   converged: boolean;
 }
 
@@ -101,17 +112,30 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
   const N = centres.length;
   if (N === 0) throw new InputError('geometry', 'has no centres');
   const sp = centres.map(harmonic);
-  for (const c of centres) if (!c.position.every(Number.isFinite)) throw new InputError(where(c), 'position must be finite');
+  for (const c of centres) {
+    if (!c.position.every((x) => Math.abs(x) <= MAX_COORDINATE)) {
+      throw new InputError(where(c), `position must be finite and within ±${MAX_COORDINATE} bohr, got [${c.position.join(', ')}]`);
+    }
+  }
+  requireMemory(N, options.memoryBytes);
   const n = 3 * N;
   const q = sp.map((s) => s.q), m = sp.map((s) => s.m);
   const w = new Float64Array(n);
   sp.forEach((s, i) => w.set(s.w, 3 * i));
   const progress = options.progress;
 
+  // far pairs (FAR_COUPLING): left out of the coupling matrix, whose rounding would swamp them; they contribute
+  // their exact pair energy and their far-field dipoles, fed in as the force that induces them
+  const { far, farForce, series, unresolved } = farField(centres, sp, N, n);
+
   // pairwise energies (and the two-body stability check, which names the lines)
-  let pairwise = 0;
+  let pairwise = 0, farPairwise = 0;
   for (let i = 0; i < N; i++) {
-    for (let j = i + 1; j < N; j++) pairwise += pairEnergy(centres[i], sp[i], centres[j], sp[j]);
+    for (let j = i + 1; j < N; j++) {
+      const e = pairEnergy(centres[i], sp[i], centres[j], sp[j]);
+      pairwise += e;
+      if (far.size > 0 && far.has(pairKey(i, j, N))) farPairwise += e;
+    }
     if (progress && i % 50 === 0) progress('pairs', i / N);
   }
 
@@ -128,7 +152,8 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
       for (let j = 0; j < i; j++) {
         const Pj = centres[j].position;
         const R = [Pj[0] - Pi[0], Pj[1] - Pi[1], Pj[2] - Pi[2]] as const;
-        writeDipoleCouplingBlock(R, (q[i] * q[j]) / Math.sqrt(m[i] * m[j]), D, 3 * i * n + 3 * j, n);
+        const coupling = far.size > 0 && far.has(pairKey(i, j, N)) ? 0 : (q[i] * q[j]) / Math.sqrt(m[i] * m[j]);
+        writeDipoleCouplingBlock(R, coupling, D, 3 * i * n + 3 * j, n);
       }
     }
     const eig = symmetricEigenInWorkspace(team, ws, n, { progress: progress && ((stage, f) => progress(stage, f)) });
@@ -137,7 +162,7 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
       throw new InputError('geometry', `the dipole-coupled cluster is unstable (lowest normal mode ω² = ${lambda[0].toExponential(3)} Eh²): centres are too close together (polarisation catastrophe)`);
     }
     const omega = lambda.map(Math.sqrt);
-    const manyBody = zeroPointShift(lambda, V, w, n);
+    const manyBody = zeroPointShift(lambda, V, w, n) + farPairwise;
     const fw = polarisabilityWeights(V, q, m, N, n);
     // Y = M^-½ V (2Ω)^-½, so that the covariance is Σ = Y Yᵀ, the Gram matrix of the columns of Yᵀ
     progress?.('covariance', 0);
@@ -151,7 +176,8 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
         }
     // Σ into Z (V is done with), lower triangle only
     const sigma = gramInWorkspace(team, ws, 'A', 'Z', n, n, { progress: progress && ((f) => progress('covariance', 0.9 * f)), lowerOnly: true });
-    const F = forceBalanceSource(centres, q, sigma, N, n);
+    const F = forceBalanceSource(centres, q, sigma, N, n, (i, j) => far.size === 0 || !far.has(pairKey(i, j, N)));
+    for (let k = 0; k < n; k++) F[k] += farForce[k];
     progress?.('covariance', 1);
     return { lambda, omega, manyBody, fw, x: applyInverse(Yt, omega, F, n) };
   });
@@ -215,8 +241,121 @@ export function computeCluster(centres: readonly ClusterCentre[], options: Clust
     centres: result,
     modes: { count: n, lowest: omega[0], highest: omega[n - 1] },
     quadrature: { evaluations: quad.evaluations, converged: quad.converged, largestRelativeError },
-    converged: quad.converged,
+    farPairs: { count: far.size, series, unresolved },
+    notes: [
+      ...(series > 0 ? [`${series} far pair${series > 1 ? 's' : ''} (dipole below the covariance's rounding level): dipoles from the pair's far-field term D7/R^7 (perturbation route)`] : []),
+      ...(unresolved > 0 ? [`${unresolved} far pair${unresolved > 1 ? 's' : ''} of anisotropic centres: their dipoles are below the rounding level and not resolved (UNCONVERGED)`] : []),
+    ],
+    converged: quad.converged && unresolved === 0,
   };
+}
+
+/**
+ * Bytes the cluster computation needs for N centres: the workspace of two (3N)² Float64 arrays and the
+ * eigensolver's smaller ones (its 4 GiB WebAssembly memory is a hard limit, src/math/simd-kernels.ts), plus the
+ * N × 3N polarisability weights and a few 3N vectors outside it.
+ */
+export function clusterMemoryBytes(N: number): { workspace: number; total: number } {
+  const n = 3 * N;
+  const sizes = eigenWorkspaceSizes(n, 16);
+  const workspace = 8 * Object.values(sizes).reduce((s, x) => s + x, 0);
+  return { workspace, total: workspace + 8 * (N * n + 16 * n) };
+}
+
+/** Largest |coordinate|, bohr: keeps R^7 and the squared distances of the tensors far from overflow. */
+export const MAX_COORDINATE = 1e15;
+
+/** The WebAssembly workspace limit (65 536 pages of 64 KiB). */
+const WORKSPACE_LIMIT = 4 * 1024 ** 3;
+
+/** The largest N whose need fits (bisection on the monotone {@link clusterMemoryBytes}). */
+export function largestClusterFitting(memoryBytes = Infinity): number {
+  const fits = (N: number) => {
+    const need = clusterMemoryBytes(N);
+    return need.workspace <= WORKSPACE_LIMIT && need.total <= memoryBytes;
+  };
+  let lo = 1, hi = 1;
+  while (fits(hi)) hi *= 2;
+  while (hi - lo > 1) {
+    const mid = (lo + hi) >> 1;
+    if (fits(mid)) lo = mid;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/** Refuse, before any work, a cluster whose memory need exceeds the workspace limit or `memoryBytes`. */
+function requireMemory(N: number, memoryBytes = Infinity): void {
+  const need = clusterMemoryBytes(N);
+  if (need.workspace <= WORKSPACE_LIMIT && need.total <= memoryBytes) return;
+  const gib = (b: number) => `${(b / 1024 ** 3).toFixed(1)} GiB`;
+  const limit = need.workspace > WORKSPACE_LIMIT ? `the eigensolver's workspace is limited to ${gib(WORKSPACE_LIMIT)} (WebAssembly memory)` : `this machine has ${gib(memoryBytes)}`;
+  throw new InputError(
+    'geometry',
+    `has ${N} centres; solving them needs about ${gib(need.total)} (two ${3 * N}×${3 * N} double-precision matrices) but ${limit}: the largest cluster that fits has ${largestClusterFitting(memoryBytes)} centres`,
+  );
+}
+
+/**
+ * Dimensionless pair coupling x = |q_i q_j| / (√(m_i m_j) R³ w_i w_j) (lowest frequencies) below which a pair
+ * counts as far (derived here, checked by the dimer test): the pair's dipole is of relative size x² against the
+ * O(1) covariance, so the normal modes resolve it only to about eps/x²; the model's far-field series is D7/R^7
+ * with corrections of relative size about 2x (the dipole–dipole screening; the model has no R^-9 multipoles). At
+ * x = 5e-6 both errors are about 1e-5.
+ */
+export const FAR_COUPLING = 5e-6;
+
+const pairKey = (i: number, j: number, N: number) => Math.min(i, j) * N + Math.max(i, j);
+
+/**
+ * Far pairs ({@link FAR_COUPLING}) and the force that induces their far-field dipoles: for isotropic centres the
+ * dipole along the pair axis n̂ (from i to j) is mu_i = (D7.a/R^7) n̂, mu_j = (D7.b/R^7) n̂, with D7 of the
+ * perturbation route (exact for QDOs); it enters as F_i = K_i <r_i> = −m_i w_i² mu_i / q_i, so
+ * the coupling matrix screens it like every other source (derived here). Anisotropic far pairs are counted as
+ * unresolved.
+ */
+function farField(centres: readonly ClusterCentre[], sp: readonly DrudeSpecies[], N: number, n: number) {
+  const far = new Set<number>();
+  const farForce = new Float64Array(n);
+  // D7 of each species pair, computed once (centres of one species share the species object)
+  const coefficients = new Map<DrudeSpecies, Map<DrudeSpecies, { a7: number; b7: number }>>();
+  let series = 0, unresolved = 0;
+  // per centre: |q|/(√m w_min), so that the coupling of a pair is g_i g_j / R³ (no allocation in the N² loop)
+  const g = sp.map((x) => Math.abs(x.q) / (Math.sqrt(x.m) * Math.min(x.w[0], x.w[1], x.w[2])));
+  for (let i = 0; i < N; i++) {
+    const si = sp[i];
+    const Pi = centres[i].position;
+    for (let j = i + 1; j < N; j++) {
+      const Pj = centres[j].position;
+      const dx = Pj[0] - Pi[0], dy = Pj[1] - Pi[1], dz = Pj[2] - Pi[2];
+      const r2 = dx * dx + dy * dy + dz * dz;
+      if (!((g[i] * g[j]) / (r2 * Math.sqrt(r2)) < FAR_COUPLING)) continue;
+      const sj = sp[j];
+      const R: Vec3 = [dx, dy, dz];
+      const r = Math.sqrt(r2);
+      far.add(pairKey(i, j, N));
+      if (!isIsotropic(si) || !isIsotropic(sj)) {
+        unresolved++;
+        continue;
+      }
+      let row = coefficients.get(si);
+      if (!row) coefficients.set(si, (row = new Map()));
+      let c = row.get(sj);
+      if (!c) {
+        const res = perturbationRoute.run(si, sj, {});
+        c = { a7: res.D7.a, b7: res.D7.b };
+        row.set(sj, c);
+      }
+      series++;
+      const muI = c.a7 / r ** 7, muJ = c.b7 / r ** 7;
+      for (let a = 0; a < 3; a++) {
+        const na = R[a] / r;
+        farForce[3 * i + a] -= (si.m * si.w[a] ** 2 * muI * na) / si.q;
+        farForce[3 * j + a] -= (sj.m * sj.w[a] ** 2 * muJ * na) / sj.q;
+      }
+    }
+  }
+  return { far, farForce, series, unresolved };
 }
 
 /** R_j − R_i, bohr. */
@@ -297,7 +436,14 @@ function zeroPointShift(lambda: Float64Array, V: Float64Array, w: ArrayLike<numb
  * from the lower triangle) and odd in R, so per pair
  *   F_i += q_i q_j [−T3(R):Σ^{ij} + ½ T3(R):Σ^{jj}],  F_j += q_i q_j [T3(R):Σ^{ij} − ½ T3(R):Σ^{ii}],  R = R_j − R_i.
  */
-function forceBalanceSource(centres: readonly ClusterCentre[], q: readonly number[], sigma: Float64Array, N: number, n: number): Float64Array {
+function forceBalanceSource(
+  centres: readonly ClusterCentre[],
+  q: readonly number[],
+  sigma: Float64Array,
+  N: number,
+  n: number,
+  include: (i: number, j: number) => boolean,
+): Float64Array {
   const F = new Float64Array(n);
   const X = new Float64Array(9);
   const c = new Float64Array(3);
@@ -319,6 +465,7 @@ function forceBalanceSource(centres: readonly ClusterCentre[], q: readonly numbe
   for (let i = 0; i < N; i++) {
     const Pi = centres[i].position;
     for (let j = i + 1; j < N; j++) {
+      if (!include(i, j)) continue;
       const Pj = centres[j].position;
       const R0 = Pj[0] - Pi[0], R1 = Pj[1] - Pi[1], R2 = Pj[2] - Pi[2];
       const qq = q[i] * q[j];

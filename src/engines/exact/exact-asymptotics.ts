@@ -1,9 +1,14 @@
 /**
- * D7, C6 and C8 from the finite-R exact solution: solve the pair at a geometric grid of large R, then fit
- *   R^7 mu_A,z(R), R^7 mu_B,z(R)  and  R^6 ΔE(R)
- * to their series in 1/R ({@link seriesPowers}, a stated number of terms) and read off the leading coefficients:
- * D7.a, D7.b and −C6, −C8. The error estimate of each coefficient is the larger of (i) the change when the last
- * series term is dropped and (ii) the change when the two smallest R are dropped.
+ * C6, C8, D7, D9 (and the first-order terms of axially anisotropic centres) from the finite-R exact solution: solve
+ * the pair at a geometric grid of large R, then fit
+ *   R^L mu_A,z(R), R^L mu_B,z(R)  and  R^L' ΔE(R)
+ * to their series in 1/R ({@link seriesPowers}, a stated number of terms; L = 7, L' = 6 for spherical centres,
+ * L = 4, L' = 5 for anisotropic ones) and read off the coefficients: D7.a, D7.b, D9.a, D9.b and −C6, −C8, and for
+ * anisotropic centres E5, E7, D4, D6, D8. The error estimate of each coefficient is the larger of (i) the change when
+ * the last series term is dropped and (ii) the change when the two smallest R are dropped.
+ *
+ * A coefficient is reported only when the Hamiltonian order makes it complete ({@link completeFromOrder}: for
+ * spherical pairs C8 from order 3 and D9 from 4; for anisotropic ones C8 from 4, D9 from 5, E7 from 6, D8 from 7).
  *
  * The grid (20 points, geometric) starts at R_min = max(8 (s_A + s_B), 3 R_c) — several ground-state widths
  * (s = 1/sqrt(2 m w) is the rms displacement per axis) and well outside the polarisation-catastrophe distance
@@ -14,9 +19,10 @@ import type { DrudeSpecies } from '../../model/drude.js';
 import { fitInverseSeries, seriesPowers, type SeriesObservable } from './asymptotic-fit.js';
 import { exactSolver, type ExactPoint } from './exact-solver.js';
 import { catastropheDistance } from './localisation.js';
+import { completeFromOrder, sphericalPair, type SeriesCoefficient } from './series-terms.js';
 
 export interface ExactAsymptoticsOptions {
-  /** Multipole order of the Hamiltonian. Default 4: C8 contains the V2·V4 cross term, so order 3 would miss part of it. */
+  /** Multipole order of the Hamiltonian. Default: the lowest that completes every fitted coefficient (4 for spherical pairs, 7 otherwise). */
   order?: number;
   /** Number of grid points. Default 20. */
   points?: number;
@@ -26,15 +32,28 @@ export interface ExactAsymptoticsOptions {
   tolerance?: number;
   /** Largest relative error estimate accepted for a coefficient. Default 1e-8. */
   fitTolerance?: number;
+  /** Fit the first-order terms of anisotropic centres too. Default: when either centre is anisotropic. */
+  firstOrder?: boolean;
+}
+
+/** One fitted coefficient with its error estimate (atomic units). */
+export interface Fitted {
+  value: number;
+  error: number;
 }
 
 export interface ExactAsymptotics {
   C6: number;
-  /** Absent when the order (2) gives no R^-8 energy term. */
+  /** Absent when the order (below 4) leaves the R^-8 energy term incomplete. */
   C8?: number;
   D7a: number;
   D7b: number;
-  error: { C6: number; C8?: number; D7a: number; D7b: number };
+  /** Absent when the order is below 5. */
+  D9a?: number;
+  D9b?: number;
+  /** First-order terms of anisotropic centres (when fitted), each only at an order that makes it complete. */
+  permanent?: { E5?: number; E7?: number; D4a?: number; D4b?: number; D6a?: number; D6b?: number; D8a?: number; D8b?: number };
+  error: Partial<Record<'C6' | 'C8' | 'D7a' | 'D7b' | 'D9a' | 'D9b' | 'E5' | 'E7' | 'D4a' | 'D4b' | 'D6a' | 'D6b' | 'D8a' | 'D8b', number>>;
   order: number;
   /** Separations used, bohr. */
   grid: number[];
@@ -54,15 +73,16 @@ export function asymptoticGrid(A: DrudeSpecies, B: DrudeSpecies, count = 20): nu
 }
 
 /** Fit one observable; returns the coefficient of each requested power with its error estimate. */
-function fitObservable(
+export function fitObservable(
   R: readonly number[],
   y: readonly number[],
   order: number,
   observable: SeriesObservable,
   terms: number,
-): { powers: number[]; coef: (p: number) => { value: number; error: number } | undefined } {
-  const lead = observable === 'energy' ? 6 : 7;
-  const powers = seriesPowers(order, observable, lead + 40).slice(0, terms);
+  firstOrder = false,
+): { powers: number[]; coef: (p: number) => Fitted | undefined } {
+  const powers = seriesPowers(order, observable, 60, firstOrder).slice(0, terms);
+  const lead = powers[0];
   const exps = powers.map((p) => p - lead);
   const scaled = y.map((v, i) => v * R[i] ** lead);
   const main = fitInverseSeries(R, scaled, exps);
@@ -80,32 +100,63 @@ function fitObservable(
   };
 }
 
-/** Solve on the grid and fit (isotropic or axial centres; first-order terms are not fitted). */
+/** Solve on the grid and fit (isotropic or axial centres). */
 export function exactAsymptotics(A: DrudeSpecies, B: DrudeSpecies, options: ExactAsymptoticsOptions = {}): ExactAsymptotics {
-  const order = options.order ?? 4;
+  const spherical = sphericalPair(A, B);
+  const from = completeFromOrder(spherical);
+  const order = options.order ?? (spherical ? from.D9 : from.D8);
   const terms = options.terms ?? 11;
   const count = Math.max(options.points ?? 20, terms + 3);
   const fitTol = options.fitTolerance ?? 1e-8;
+  const firstOrder = options.firstOrder ?? !spherical;
   const grid = asymptoticGrid(A, B, count);
   const solver = exactSolver(A, B, { order, tolerance: options.tolerance ?? 1e-12, maxQuanta: 24 });
   const points = grid.map((R) => solver.solve(R).point);
   const reasons: string[] = [];
   for (const p of points) for (const r of p.reasons) reasons.push(`R = ${p.R.toPrecision(5)} bohr: ${r}`);
 
-  const energy = fitObservable(grid, points.map((p) => p.energy), order, 'energy', terms);
-  const muA = fitObservable(grid, points.map((p) => p.muA), order, 'muA', terms);
-  const muB = fitObservable(grid, points.map((p) => p.muB), order, 'muB', terms);
-  const c6 = energy.coef(6)!, c8 = energy.coef(8), dA = muA.coef(7)!, dB = muB.coef(7)!;
-  const checks: Array<[string, { value: number; error: number } | undefined]> = [['C6', c6], ['C8', c8], ['D7.a', dA], ['D7.b', dB]];
-  for (const [name, c] of checks)
-    if (c && !(c.error <= fitTol * Math.abs(c.value)))
+  const energy = fitObservable(grid, points.map((p) => p.energy), order, 'energy', terms, firstOrder);
+  const muA = fitObservable(grid, points.map((p) => p.muA), order, 'muA', terms, firstOrder);
+  const muB = fitObservable(grid, points.map((p) => p.muB), order, 'muB', terms, firstOrder);
+  const complete = (name: SeriesCoefficient) => order >= from[name];
+  const picked: Array<[keyof ExactAsymptotics['error'], string, Fitted | undefined, number]> = [
+    ['C6', 'C6', energy.coef(6), -1],
+    ['C8', 'C8', complete('C8') ? energy.coef(8) : undefined, -1],
+    ['D7a', 'D7.a', muA.coef(7), 1],
+    ['D7b', 'D7.b', muB.coef(7), 1],
+    ['D9a', 'D9.a', complete('D9') ? muA.coef(9) : undefined, 1],
+    ['D9b', 'D9.b', complete('D9') ? muB.coef(9) : undefined, 1],
+  ];
+  if (firstOrder)
+    picked.push(
+      ['E5', 'E5', complete('E5') ? energy.coef(5) : undefined, 1],
+      ['E7', 'E7', complete('E7') ? energy.coef(7) : undefined, 1],
+      ['D4a', 'D4.a', complete('D4') ? muA.coef(4) : undefined, 1],
+      ['D4b', 'D4.b', complete('D4') ? muB.coef(4) : undefined, 1],
+      ['D6a', 'D6.a', complete('D6') ? muA.coef(6) : undefined, 1],
+      ['D6b', 'D6.b', complete('D6') ? muB.coef(6) : undefined, 1],
+      ['D8a', 'D8.a', complete('D8') ? muA.coef(8) : undefined, 1],
+      ['D8b', 'D8.b', complete('D8') ? muB.coef(8) : undefined, 1],
+    );
+  const value: Partial<Record<keyof ExactAsymptotics['error'], number>> = {};
+  const error: ExactAsymptotics['error'] = {};
+  for (const [key, name, c, sign] of picked) {
+    if (!c) continue;
+    value[key] = sign * c.value;
+    error[key] = c.error;
+    if (!(c.error <= fitTol * Math.abs(c.value)))
       reasons.push(`fit of ${name}: error estimate ${(c.error / Math.abs(c.value)).toExponential(1)} (relative) above ${fitTol}`);
+  }
+  const { E5, E7, D4a, D4b, D6a, D6b, D8a, D8b } = value;
+  const permanent = Object.fromEntries(Object.entries({ E5, E7, D4a, D4b, D6a, D6b, D8a, D8b }).filter(([, v]) => v !== undefined));
   return {
-    C6: -c6.value,
-    ...(c8 ? { C8: -c8.value } : {}),
-    D7a: dA.value,
-    D7b: dB.value,
-    error: { C6: c6.error, ...(c8 ? { C8: c8.error } : {}), D7a: dA.error, D7b: dB.error },
+    C6: value.C6!,
+    ...(value.C8 !== undefined ? { C8: value.C8 } : {}),
+    D7a: value.D7a!,
+    D7b: value.D7b!,
+    ...(value.D9a !== undefined ? { D9a: value.D9a, D9b: value.D9b } : {}),
+    ...(firstOrder ? { permanent } : {}),
+    error,
     order,
     grid,
     powers: { energy: energy.powers, muA: muA.powers, muB: muB.powers },

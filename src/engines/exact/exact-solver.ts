@@ -12,7 +12,7 @@ import type { DrudeSpecies } from '../../model/drude.js';
 import { solveInBasis, type BasisSolution } from './ground-state.js';
 import { basisReach, localisationCheck, type LocalisationCheck } from './localisation.js';
 import { fullProductDimension } from './pair-basis.js';
-import { exactModel, hamiltonianAt, type ExactModel } from './pair-hamiltonian.js';
+import { exactModel, extendHamiltonian, hamiltonianAt, type ExactModel, type PairHamiltonianValues } from './pair-hamiltonian.js';
 
 export interface ExactOptions {
   /** Highest multipole order of the coupling (2 dipole–dipole, 3 adds dipole–quadrupole …). Default 3. */
@@ -77,10 +77,14 @@ export function exactSolver(A: DrudeSpecies, B: DrudeSpecies, options: ExactOpti
   const residualTol = options.residualTolerance ?? 1e-10;
   let model: ExactModel | undefined;
   let lastVector: Float64Array | undefined;
+  let spare: PairHamiltonianValues | undefined; // the Hamiltonian arrays of the previous R, reused
+  let lastQuanta = 0; // the accepted basis of the previous point
 
   const modelFor = (N: number): ExactModel => {
     if (!model || model.basis.maxQuanta < N) {
-      const cap = Math.min(maxQuanta, Math.max(N, model ? model.basis.maxQuanta + 6 : Math.max(start + 8, 12)));
+      // grow in steps of 6 quanta; at order 7 the matrices are so dense that a step of 3 beyond N is cheaper
+      const grown = model ? (order >= 7 ? Math.max(N + 3, model.basis.maxQuanta + 1) : model.basis.maxQuanta + 6) : Math.max(start + 8, 12);
+      const cap = Math.min(maxQuanta, Math.max(N, grown));
       model = exactModel(A, B, { order, maxQuanta: cap, reduced });
     }
     return model;
@@ -97,14 +101,19 @@ export function exactSolver(A: DrudeSpecies, B: DrudeSpecies, options: ExactOpti
     let current: BasisSolution | undefined = undefined;
     let converged = false;
     let calmSteps = 0;
-    let H: { values: Float64Array; diagonal: Float64Array } | undefined;
+    let H: PairHamiltonianValues | undefined;
     let Hfor: ExactModel | undefined;
-    for (let N = start; N <= limit; N++) {
+    // a curve visits R in order and neighbouring points need similar bases: start 4 quanta below the previous point's
+    // (the loop still needs two calm steps, so a point may end up to 2 quanta below its neighbour, or above it)
+    const begin = Math.min(limit, Math.max(start, lastQuanta - 4));
+    for (let N = begin; N <= limit; N++) {
       const m = modelFor(N);
+      // only the rows of the nested basis in use are filled (the model may be much larger than this point needs)
+      const rows = m.basis.prefixSize[Math.min(N, m.basis.maxQuanta)];
       if (Hfor !== m) {
-        H = hamiltonianAt(m, R);
+        H = spare = hamiltonianAt(m, R, rows, spare);
         Hfor = m;
-      }
+      } else extendHamiltonian(m, R, H!, rows);
       const guess = previous?.vector ?? (lastVector && lastVector.length <= m.basis.size ? lastVector : undefined);
       current = solveInBasis(m, H!, N, residualTol, guess);
       const { vector: _v, iterations: _i, ...step } = current;
@@ -128,6 +137,7 @@ export function exactSolver(A: DrudeSpecies, B: DrudeSpecies, options: ExactOpti
     const sol = current!;
     lastVector = sol.vector;
     const N = sol.quanta;
+    lastQuanta = N;
     if (!converged) {
       if (N >= maxQuanta) reasons.push(`basis not converged to ${tol} within ${maxQuanta} quanta`);
       else

@@ -66,71 +66,240 @@ function sphereDirections(count: number): number[][] {
   return out;
 }
 
+const SAMPLED_DIRECTIONS = 1500;
+/** The sampled directions and the axis directions, each ray with both signs; the same for every call. */
+let directionCache: number[][] | undefined;
+function candidateDirections(): number[][] {
+  if (!directionCache) {
+    directionCache = [];
+    for (const nu of sphereDirections(SAMPLED_DIRECTIONS)) directionCache.push(nu, nu.map((x) => -x));
+    // the axis directions (pure z displacements are often the worst)
+    for (let i = 0; i < 6; i++)
+      for (const sign of [1, -1]) {
+        const nu = new Array<number>(6).fill(0);
+        nu[i] = sign;
+        directionCache.push(nu);
+      }
+  }
+  return directionCache;
+}
+
+/**
+ * Per order n, the monomials ν^e of the coupling's terms at every candidate direction (direction-major): the
+ * species only scale them, a_n(ν) = qA qB/R^(n+1) Σ_t c_t (Π_i s_i^e_t,i) ν^e_t, so each call is one dot product
+ * per direction.
+ */
+const directionMonomials = new Map<number, Float64Array>();
+function candidateMonomials(n: number): Float64Array {
+  let table = directionMonomials.get(n);
+  if (!table) {
+    const { e } = couplingTermsFlat(n);
+    const terms = e.length / 6;
+    const directions = candidateDirections();
+    table = new Float64Array(directions.length * terms);
+    directions.forEach((nu, d) => {
+      for (let t = 0; t < terms; t++) {
+        let m = 1;
+        for (let i = 0; i < 6; i++) if (e[6 * t + i]) m *= nu[i] ** e[6 * t + i];
+        table![d * terms + t] = m;
+      }
+    });
+    directionMonomials.set(n, table);
+  }
+  return table;
+}
+
+/** The order-n coupling flattened: coefficient and the six exponents of each term. */
+interface FlatTerms {
+  c: Float64Array;
+  e: Uint8Array;
+  /** The factors x_i^e of term t as indices 6 e + i into a power table, i ascending: factorStart[t] … factorStart[t+1]−1. */
+  factorStart: Int32Array;
+  factor: Int32Array;
+}
+const flatTerms = new Map<number, FlatTerms>();
+/** {@link FlatTerms} of the order-n coupling, built once per order. */
+function couplingTermsFlat(n: number): FlatTerms {
+  let flat = flatTerms.get(n);
+  if (!flat) {
+    const terms = drudeCouplingPolynomial(n);
+    const factorStart = new Int32Array(terms.length + 1);
+    const factor: number[] = [];
+    terms.forEach((t, k) => {
+      factorStart[k] = factor.length;
+      t.e.forEach((e, i) => e && factor.push(6 * e + i));
+    });
+    factorStart[terms.length] = factor.length;
+    flat = {
+      c: Float64Array.from(terms, (t) => t.c),
+      e: Uint8Array.from(terms.flatMap((t) => [...t.e])),
+      factorStart,
+      factor: Int32Array.from(factor),
+    };
+    flatTerms.set(n, flat);
+  }
+  return flat;
+}
+
+/**
+ * The radial search grid: τ_k = 10⁻³ · 1.15^k below 10⁷, by repeated multiplication. The first grid point where
+ * U'(τ)/τ ≤ 0 brackets the barrier (with the grid point before it, or 0); rays whose slope stays positive on the
+ * whole grid have no barrier.
+ */
+const RADIAL_GRID: Float64Array = (() => {
+  const grid: number[] = [];
+  for (let tau = 1e-3; tau < 1e7; tau *= 1.15) grid.push(tau);
+  return Float64Array.from(grid);
+})();
+
+/** U'(τ)/τ = Σ_{n≥2} n a_n τ^(n−2) by Horner's rule. */
+function slopeAt(a: Float64Array, order: number, tau: number): number {
+  let s = 0;
+  for (let n = order; n >= 2; n--) s = s * tau + n * a[n];
+  return s;
+}
+
+/** Index of the first grid point ≥ x (RADIAL_GRID.length when none). */
+function gridIndexAbove(x: number): number {
+  let lo = 0, hi = RADIAL_GRID.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (RADIAL_GRID[mid] < x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo;
+}
+
+/**
+ * The barrier along a ray from the bracketing grid point k (slope ≤ 0 there, > 0 at every grid point before):
+ * the crossing in (τ_(k−1), τ_k], by bisection, or `root` (the closed-form crossing) clamped to that interval.
+ */
+function crossingIn(a: Float64Array, order: number, k: number, root?: number): number {
+  let lo = k > 0 ? RADIAL_GRID[k - 1] : 0;
+  let hi = RADIAL_GRID[k];
+  if (root !== undefined) return Math.min(hi, Math.max(lo, root));
+  for (let step = 0; step < 60; step++) {
+    const mid = 0.5 * (lo + hi);
+    if (slopeAt(a, order, mid) > 0) lo = mid;
+    else hi = mid;
+  }
+  return 0.5 * (lo + hi);
+}
+
+/**
+ * First maximum τ_b of U(τ) = Σ a_n τ^n (a_2 > 0): the first grid point where the slope polynomial is ≤ 0, then the
+ * crossing before it. The slope is linear for order 3 and quadratic for order 4: there its roots are taken in closed
+ * form (numerically stable quadratic formula; common practice) and only the grid points next to them are evaluated;
+ * higher orders scan the grid and bisect.
+ */
+function firstBarrier(a: Float64Array, order: number): number {
+  const b0 = 2 * a[2], b1 = order >= 3 ? 3 * a[3] : 0, b2 = order >= 4 ? 4 * a[4] : 0;
+  if (order > 4) {
+    for (let k = 0; k < RADIAL_GRID.length; k++) if (slopeAt(a, order, RADIAL_GRID[k]) <= 0) return crossingIn(a, order, k);
+    return Infinity;
+  }
+  // the first positive root r1 of b0 + b1 τ + b2 τ² (b0 > 0); the slope is ≤ 0 from r1 to the next root, if any
+  let r1: number;
+  if (b2 === 0) {
+    if (!(b1 < 0)) return Infinity;
+    r1 = -b0 / b1;
+  } else {
+    const disc = b1 * b1 - 4 * b2 * b0;
+    if (b2 > 0 && (!(b1 < 0) || disc < 0)) return Infinity;
+    const q = -0.5 * (b1 + (b1 < 0 ? -1 : 1) * Math.sqrt(disc));
+    // b2 < 0: one positive root (the roots' product b0/b2 < 0); b2 > 0: two, the slope ≤ 0 between them
+    const ra = q / b2, rb = b0 / q;
+    r1 = ra > 0 ? (rb > 0 ? Math.min(ra, rb) : ra) : rb > 0 ? rb : Infinity;
+  }
+  // the first grid point with slope ≤ 0 lies next to r1 (rounding may move the sign change by an ulp)
+  let k = gridIndexAbove(r1);
+  if (k > 0 && slopeAt(a, order, RADIAL_GRID[k - 1]) <= 0) k--;
+  if (k >= RADIAL_GRID.length || slopeAt(a, order, RADIAL_GRID[k]) > 0) return Infinity; // beyond the grid, or a dip between two grid points
+  return crossingIn(a, order, k, r1);
+}
+
+/** Pattern searches started from the best sampled directions. */
+const PATTERN_STARTS = 4;
+
+/** Indices of the `count` smallest values, ascending, ties in index order (a stable sort's first `count`). */
+function smallestFirst(values: Float64Array, count: number): number[] {
+  const out: number[] = [];
+  for (let d = 0; d < values.length; d++) {
+    const v = values[d];
+    if (out.length === count && !(v < values[out[count - 1]])) continue;
+    let at = out.length;
+    while (at > 0 && v < values[out[at - 1]]) at--;
+    out.splice(at, 0, d);
+    if (out.length > count) out.pop();
+  }
+  return out;
+}
+
 /** Barrier check of the order-`order` multipole potential of the pair at separation R (bohr). */
 export function localisationCheck(A: DrudeSpecies, B: DrudeSpecies, order: number, R: number): LocalisationCheck {
   const catastropheR = catastropheDistance(A, B);
   if (R <= catastropheR) return { barrier: 0, maxQuanta: -1, catastropheR };
   const scale = [...A.w.map((w) => 2 / Math.sqrt(2 * A.m * w)), ...B.w.map((w) => 2 / Math.sqrt(2 * B.m * w))];
   const harmonic = [...A.w, ...B.w];
-  const polys: Array<{ n: number; terms: ReturnType<typeof drudeCouplingPolynomial>; factor: number }> = [];
-  for (let n = 2; n <= order; n++) polys.push({ n, terms: drudeCouplingPolynomial(n), factor: (A.q * B.q) / R ** (n + 1) });
+  const polys: Array<{ n: number; terms: FlatTerms; factor: number }> = [];
+  let maxExponent = 2;
+  for (let n = 2; n <= order; n++) {
+    polys.push({ n, terms: couplingTermsFlat(n), factor: (A.q * B.q) / R ** (n + 1) });
+    maxExponent = n;
+  }
+  const a = new Float64Array(order + 1);
+  const powers = new Float64Array(6 * (maxExponent + 1)); // x_i^e at 6 e + i
 
   /** First maximum τ_b of U along the unit direction ν (both signs of ν are separate rays). */
   const barrierAlong = (nu: readonly number[]): number => {
-    const x = nu.map((v, i) => v * scale[i]);
-    const a: number[] = new Array(order + 1).fill(0);
+    for (let i = 0; i < 6; i++) {
+      const x = nu[i] * scale[i];
+      powers[6 + i] = x;
+      for (let e = 2; e <= maxExponent; e++) powers[6 * e + i] = powers[6 * (e - 1) + i] * x;
+    }
+    a.fill(0);
     for (let i = 0; i < 6; i++) a[2] += harmonic[i] * nu[i] * nu[i];
     for (const { n, terms, factor } of polys) {
+      const { c, factorStart, factor: index } = terms;
       let s = 0;
-      for (const t of terms) {
-        let m = t.c;
-        for (let i = 0; i < 6; i++) if (t.e[i]) m *= x[i] ** t.e[i];
+      for (let t = 0; t < c.length; t++) {
+        let m = c[t];
+        for (let f = factorStart[t]; f < factorStart[t + 1]; f++) m *= powers[index[f]];
         s += m;
       }
       a[n] += factor * s;
     }
     if (a[2] <= 0) return 0;
-    // U'(τ)/τ = Σ n a_n τ^(n−2): first positive root, scanned on a geometric grid then bisected
-    const slope = (tau: number) => {
-      let s = 0;
-      for (let n = order; n >= 2; n--) s = s * tau + n * a[n];
-      return s;
-    };
-    let lo = 0;
-    for (let tau = 1e-3; tau < 1e7; tau *= 1.15) {
-      if (slope(tau) <= 0) {
-        let hi = tau;
-        for (let k = 0; k < 60; k++) {
-          const mid = 0.5 * (lo + hi);
-          if (slope(mid) > 0) lo = mid;
-          else hi = mid;
-        }
-        return 0.5 * (lo + hi);
-      }
-      lo = tau;
-    }
-    return Infinity;
+    return firstBarrier(a, order);
   };
 
-  const unit = (v: number[]) => {
-    const n = Math.hypot(...v);
-    return v.map((x) => x / n);
-  };
-  const candidates: Array<{ nu: number[]; tau: number }> = [];
-  for (const nu of sphereDirections(1500)) {
-    const back = nu.map((x) => -x);
-    candidates.push({ nu, tau: barrierAlong(nu) }, { nu: back, tau: barrierAlong(back) });
-  }
-  // the axis directions (pure z displacements are often the worst)
-  for (let i = 0; i < 6; i++)
-    for (const sign of [1, -1]) {
-      const nu = new Array(6).fill(0);
-      nu[i] = sign;
-      candidates.push({ nu, tau: barrierAlong(nu) });
+  // the candidate directions from their cached monomials: the term coefficients scaled once for this pair
+  const scaledTerms = polys.map(({ terms }) =>
+    Float64Array.from(terms.c, (c, t) => {
+      let m = c;
+      for (let i = 0; i < 6; i++) if (terms.e[6 * t + i]) m *= scale[i] ** terms.e[6 * t + i];
+      return m;
+    }),
+  );
+  const monomials = polys.map(({ n }) => candidateMonomials(n));
+  const directions = candidateDirections();
+  const taus = new Float64Array(directions.length);
+  for (let d = 0; d < directions.length; d++) {
+    const nu = directions[d];
+    a.fill(0);
+    for (let i = 0; i < 6; i++) a[2] += harmonic[i] * nu[i] * nu[i];
+    for (let p = 0; p < polys.length; p++) {
+      const coeffs = scaledTerms[p], table = monomials[p], terms = coeffs.length;
+      let s = 0;
+      for (let t = 0, at = d * terms; t < terms; t++, at++) s += coeffs[t] * table[at];
+      a[polys[p].n] += polys[p].factor * s;
     }
-  candidates.sort((p, q) => p.tau - q.tau);
-  let best = candidates[0].tau;
-  for (const start of candidates.slice(0, 4)) {
+    taus[d] = a[2] <= 0 ? 0 : firstBarrier(a, order);
+  }
+  const starts = smallestFirst(taus, PATTERN_STARTS).map((d) => ({ nu: directions[d], tau: taus[d] }));
+  let best = starts[0].tau;
+  const trial = new Array<number>(6);
+  for (const start of starts) {
     if (!Number.isFinite(start.tau) || start.tau === 0) continue;
     let { nu, tau } = start;
     for (let step = 0.2; step > 1e-4; step /= 2) {
@@ -138,11 +307,14 @@ export function localisationCheck(A: DrudeSpecies, B: DrudeSpecies, order: numbe
       while (improved) {
         improved = false;
         for (let i = 0; i < 6; i++)
-          for (const sign of [1, -1]) {
-            const trial = unit(nu.map((v, j) => (j === i ? v + sign * step : v)));
+          for (let sign = 1; sign >= -1; sign -= 2) {
+            // ν + sign·step·ê_i, normalised
+            for (let j = 0; j < 6; j++) trial[j] = j === i ? nu[j] + sign * step : nu[j];
+            const norm = Math.hypot(trial[0], trial[1], trial[2], trial[3], trial[4], trial[5]);
+            for (let j = 0; j < 6; j++) trial[j] /= norm;
             const t = barrierAlong(trial);
             if (t < tau) {
-              nu = trial;
+              nu = trial.slice();
               tau = t;
               improved = true;
             }

@@ -14,8 +14,8 @@ import type { CircularMonomial } from './circular-states.js';
 import { pairBasis, type PairBasis } from './pair-basis.js';
 import { buildSparseOperator, combineGroups, type OperatorTerm, type SparseOperator } from './sparse-operator.js';
 
-/** Highest multipole order the exact engine accepts (R^-7 couplings). */
-export const MAX_EXACT_ORDER = 6;
+/** Highest multipole order the exact engine accepts (R^-8 couplings: order 7 completes the first-order D8 of anisotropic centres). */
+export const MAX_EXACT_ORDER = 7;
 
 export interface ExactModelOptions {
   /** Highest multipole order n in V = Σ V_n/R^(n+1): 2 dipole–dipole, 3 adds dipole–quadrupole (default), 4 … */
@@ -91,17 +91,46 @@ export function exactModel(A: DrudeSpecies, B: DrudeSpecies, options: ExactModel
   return { A, B, order, basis, coupling, excitation, dipoleA, dipoleB };
 }
 
-/** The Hamiltonian H − E0 at separation R (bohr): off-diagonal values on the coupling pattern and the full diagonal. */
-export function hamiltonianAt(model: ExactModel, R: number): { values: Float64Array; diagonal: Float64Array } {
-  const weights = model.coupling.values.map((_, k) => R ** -(k + 3));
-  const values = combineGroups(model.coupling, weights);
-  const diagonal = Float64Array.from(model.excitation);
+/**
+ * The Hamiltonian H − E0 at separation R (bohr): off-diagonal values on the coupling pattern and the diagonal,
+ * filled for the leading `rows` basis functions (default all). A nested basis of N quanta needs only its prefix, so
+ * a solver that stays well below the model's size fills the rest only when it gets there ({@link extendHamiltonian}).
+ */
+export interface PairHamiltonianValues {
+  values: Float64Array;
+  diagonal: Float64Array;
+  /** Rows filled so far. */
+  rows: number;
+}
+
+export function hamiltonianAt(model: ExactModel, R: number, rows = model.basis.size, reuse?: PairHamiltonianValues): PairHamiltonianValues {
+  // `reuse`: the arrays of an earlier R on the same model (a curve visits many R; fresh arrays are slow to touch)
+  const H: PairHamiltonianValues =
+    reuse && reuse.values.length === model.coupling.col.length
+      ? { values: reuse.values, diagonal: reuse.diagonal, rows: 0 }
+      : { values: new Float64Array(model.coupling.col.length), diagonal: new Float64Array(model.basis.size), rows: 0 };
+  H.diagonal.set(model.excitation);
+  extendHamiltonian(model, R, H, rows);
+  return H;
+}
+
+/** Fill rows [H.rows, rows) of the Hamiltonian at R (the same R it was started with). */
+export function extendHamiltonian(model: ExactModel, R: number, H: PairHamiltonianValues, rows: number): void {
+  const end = Math.min(rows, model.basis.size);
+  if (end <= H.rows) return;
   const { rowPtr, col } = model.coupling;
-  for (let i = 0; i < model.basis.size; i++)
+  combineGroups(
+    model.coupling,
+    model.coupling.values.map((_, k) => R ** -(k + 3)),
+    H.values,
+    rowPtr[H.rows],
+    rowPtr[end],
+  );
+  for (let i = H.rows; i < end; i++)
     for (let k = rowPtr[i]; k < rowPtr[i + 1]; k++)
       if (col[k] === i) {
-        diagonal[i] += values[k];
-        values[k] = 0; // kept once, in the diagonal
+        H.diagonal[i] += H.values[k];
+        H.values[k] = 0; // kept once, in the diagonal
       }
-  return { values, diagonal };
+  H.rows = end;
 }

@@ -35,10 +35,10 @@ import {
   firstOrderMean,
   groundMean,
   harmonicPair,
-  multiply,
   pairKey,
 } from './harmonic-polynomial.js';
 import type { VectorCoefficients } from '../route.js';
+import { SecondOrderEnergies } from './coupling-plan.js';
 
 /** The force-balance coefficients of a QDO pair (atomic units; C8, C10 present when maxEnergyPower allows). */
 export type ForceBalanceCoefficients = VectorCoefficients;
@@ -89,17 +89,10 @@ export function forceBalanceCoefficients(A: DrudeSpecies, B: DrudeSpecies, maxEn
     C6 += (g * g) / (4 * A.m * B.m * A.w[a] * B.w[a] * (A.w[a] + B.w[a]));
   }
 
-  // C8, C10: second-order energies Σ_{n+n'=2N−2} <V_n P_n'>_c from Dalgarno–Lewis functions (covariances)
-  const V = new Map<number, Poly6>([[2, V2], [3, V3], [4, V4]]);
-  const P = new Map<number, Poly6>();
-  const coupling = (n: number) => V.get(n) ?? V.set(n, couplingPolynomial(n, A, B)).get(n)!;
-  const dl = (n: number) => P.get(n) ?? P.set(n, dalgarnoLewis(coupling(n), h)).get(n)!;
-  const secondOrder = (power: number) => {
-    let e = 0;
-    for (let n = 2; n <= power - 4; n++) e += covariance(coupling(n), dl(power - 2 - n), h);
-    return -e;
-  };
-  const P2 = dl(2);
+  // C8, C10: second-order energies Σ_{n+n'=2N−2} <V_n P_n'>_c from Dalgarno–Lewis functions (covariances),
+  // on typed arrays laid out once per order (coupling-plan.ts)
+  const energies = new SecondOrderEnergies(A, B, h);
+  const P2 = dalgarnoLewis(V2, h);
 
   // force balance, order by order
   const grad3 = [0, 1, 2, 3, 4, 5].map((c) => derivative(V3, c));
@@ -112,17 +105,12 @@ export function forceBalanceCoefficients(A: DrudeSpecies, B: DrudeSpecies, maxEn
   const dip = (x: number[], q: number, off: number): Vec3 => [-q * x[off], -q * x[off + 1], -q * x[off + 2]];
   return {
     C6,
-    ...(maxEnergyPower >= 8 ? { C8: secondOrder(8) } : {}),
-    ...(maxEnergyPower >= 10 ? { C10: secondOrder(10) } : {}),
+    ...(maxEnergyPower >= 8 ? { C8: energies.coefficient(8) } : {}),
+    ...(maxEnergyPower >= 10 ? { C10: energies.coefficient(10) } : {}),
     D7a: dip(x7, A.q, 0),
     D7b: dip(x7, B.q, 3),
     permanent: { E5: groundMean(V4, h), D4a: dip(x4, A.q, 0), D4b: dip(x4, B.q, 3) },
   };
-}
-
-/** <X Y>_0 − <X>_0 <Y>_0 in the uncoupled ground state. */
-function covariance(X: Poly6, Y: Poly6, h: HarmonicPair): number {
-  return groundMean(multiply(X, Y), h) - groundMean(X, h) * groundMean(Y, h);
 }
 
 /** Value of a polynomial of degree ≤ 1 at the point x. */

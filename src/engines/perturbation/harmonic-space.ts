@@ -93,7 +93,8 @@ function buildHarmonicSpace(species: DrudeSpecies, maxQuanta: number): LocalSpac
 
   return {
     excitation(i) {
-      const [nx, ny, nz] = harmonicQuanta(i);
+      // the quanta of harmonicQuanta(i), without the tuple (called once per product-vector entry)
+      const nx = i % BASE, ny = Math.floor(i / BASE) % BASE, nz = Math.floor(i / (BASE * BASE));
       return nx * w[0] + ny * w[1] + nz * w[2];
     },
     applyMoment: apply,

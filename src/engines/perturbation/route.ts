@@ -13,21 +13,26 @@ export const perturbationRoute: Route = {
   },
   run(A, B, options) {
     const power = options.maxEnergyPower ?? 10;
-    const quanta = options.maxQuanta ?? requiredQuanta(power);
-    const r = perturbationCoefficients(localSpaceOf(A, quanta), localSpaceOf(B, quanta), { maxEnergyPower: power });
-    // spherical centres have no permanent quadrupole: their E5, D4 vanish by symmetry (pseudo-spectra leave rounding)
+    const need = requiredQuanta(power, 9);
+    const quanta = options.maxQuanta ?? need;
+    const centres = [isSpherical(A), isSpherical(B)] as const;
+    const spherical = centres[0] && centres[1];
+    // spherical centres have no permanent moments: their first-order terms vanish by symmetry (not computed)
+    const r = perturbationCoefficients(localSpaceOf(A, quanta), localSpaceOf(B, quanta), { maxEnergyPower: power, maxDipolePower: 9, spherical: centres });
     return vectorRouteResult('perturbation', r, {
-      spherical: isSpherical(A) && isSpherical(B),
+      spherical,
       // a truncation below the exact minimum changes the numbers: flag them
-      converged: quanta >= requiredQuanta(power),
+      converged: quanta >= need,
       notes: [
         ...(A.kind === 'drude' || B.kind === 'drude'
           ? [
-              quanta >= requiredQuanta(power)
-                ? `harmonic truncation for QDOs: ${quanta} quanta per centre (exact from ${requiredQuanta(power)} up)`
-                : `harmonic truncation ${quanta} is below the exact minimum ${requiredQuanta(power)}: numbers untrusted`,
+              quanta >= need
+                ? `harmonic truncation for QDOs: ${quanta} quanta per centre (exact from ${need} up, D9 included)`
+                : `harmonic truncation ${quanta} is below the exact minimum ${need}: numbers untrusted`,
             ]
           : []),
+        `D9 from the second-order chain${spherical ? ' V3×V4 (V2×V5 vanishes for spherical centres)' : 's V2×V5 and V3×V4'}: complete at R^-9 (first and third order give no R^-9 dipole for centres even under inversion)`,
+        ...(spherical ? [] : ['first-order terms E5, E7, D4, D6, D8 from the permanent moments (complete through E R^-8 and mu R^-9)']),
         ...new Set([...speciesNotes(A), ...speciesNotes(B)]),
       ],
     });

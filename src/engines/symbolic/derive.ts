@@ -10,14 +10,14 @@ import { symbolicCoefficients, type SymbolicCoefficients } from './symbolic-rspt
 import { symbolTable, type PairLayout, type SymbolTable } from './symbols.js';
 
 /** Every quantity the symbolic engine derives. */
-export const SYMBOLIC_QUANTITIES = ['C6', 'C8', 'C10', 'D7.a', 'D7.b', 'D7.total', 'mu.a', 'mu.b', 'mu.total'] as const;
+export const SYMBOLIC_QUANTITIES = ['C6', 'C8', 'C10', 'D7.a', 'D7.b', 'D7.total', 'D9.a', 'D9.b', 'D9.total', 'mu.a', 'mu.b', 'mu.total'] as const;
 export type SymbolicQuantity = (typeof SYMBOLIC_QUANTITIES)[number];
 
 /** What `derive` prints when no quantity is named. */
 export const DEFAULT_QUANTITIES: readonly SymbolicQuantity[] = ['C6', 'C8', 'D7.a', 'D7.b', 'D7.total'];
 
 /** Quantities whose anisotropic closed forms are not derived (too many distinct excitation energies). */
-const ISOTROPIC_ONLY: readonly SymbolicQuantity[] = ['C8', 'C10'];
+const ISOTROPIC_ONLY: readonly SymbolicQuantity[] = ['C8', 'C10', 'D9.a', 'D9.b', 'D9.total'];
 
 export const QUANTITY_MEANING: Record<SymbolicQuantity, { meaning: string; units: string }> = {
   C6: { meaning: 'dispersion coefficient, E(R) ∋ −C6/R^6', units: 'Eh a0^6' },
@@ -26,6 +26,9 @@ export const QUANTITY_MEANING: Record<SymbolicQuantity, { meaning: string; units
   'D7.a': { meaning: 'dispersion dipole of A, lim R^7 mu_A,z (A at the origin, B at +R on z)', units: 'e a0^8' },
   'D7.b': { meaning: 'dispersion dipole of B, lim R^7 mu_B,z', units: 'e a0^8' },
   'D7.total': { meaning: 'dispersion dipole of the pair, D7.a + D7.b', units: 'e a0^8' },
+  'D9.a': { meaning: 'next dispersion dipole of A, the R^-9 coefficient of mu_A,z (V3·V4 chain; V2·V5 vanishes for isotropic QDOs)', units: 'e a0^10' },
+  'D9.b': { meaning: 'next dispersion dipole of B, the R^-9 coefficient of mu_B,z', units: 'e a0^10' },
+  'D9.total': { meaning: 'next dispersion dipole of the pair, D9.a + D9.b', units: 'e a0^10' },
   'mu.a': { meaning: 'leading dispersion dipole of A at distance R, D7.a/R^7', units: 'e a0' },
   'mu.b': { meaning: 'leading dispersion dipole of B at distance R, D7.b/R^7', units: 'e a0' },
   'mu.total': { meaning: 'leading dispersion dipole of the pair at distance R, D7.total/R^7', units: 'e a0' },
@@ -55,7 +58,7 @@ export function parseQuantityName(field: string, name: string, layout: PairLayou
 /** Does this quantity use the distance R? */
 export const usesDistance = (q: SymbolicQuantity): boolean => q.startsWith('mu.');
 
-type BaseQuantity = 'C6' | 'C8' | 'C10' | 'D7.a' | 'D7.b' | 'D7.total';
+type BaseQuantity = 'C6' | 'C8' | 'C10' | 'D7.a' | 'D7.b' | 'D7.total' | 'D9.a' | 'D9.b' | 'D9.total';
 
 /** mu.x is D7.x/R^7: the same closed form with R^-7. */
 const baseOf = (q: SymbolicQuantity): BaseQuantity => (q.startsWith('mu.') ? (`D7.${q.slice(3)}` as BaseQuantity) : (q as BaseQuantity));
@@ -64,13 +67,33 @@ const baseOf = (q: SymbolicQuantity): BaseQuantity => (q.startsWith('mu.') ? (`D
 function baseTerms(table: SymbolTable, names: readonly BaseQuantity[]): Map<BaseQuantity, Term[]> {
   const powers = new Set<6 | 8 | 10>();
   let dipoles = false;
+  let dipoles9 = false;
   for (const q of names) {
     if (q === 'C6' || q === 'C8' || q === 'C10') powers.add(Number(q.slice(1)) as 6 | 8 | 10);
+    else if (q.startsWith('D9.')) dipoles9 = true;
     else dipoles = true;
   }
-  const raw: SymbolicCoefficients = symbolicCoefficients(table, { energyPowers: [...powers].sort((x, y) => x - y), dipoles });
-  const pick = (q: BaseQuantity): Term[] =>
-    q === 'C6' || q === 'C8' || q === 'C10' ? raw[q]! : q === 'D7.a' ? raw.D7a! : q === 'D7.b' ? raw.D7b! : [...raw.D7a!, ...raw.D7b!];
+  const raw: SymbolicCoefficients = symbolicCoefficients(table, { energyPowers: [...powers].sort((x, y) => x - y), dipoles, dipoles9 });
+  const pick = (q: BaseQuantity): Term[] => {
+    switch (q) {
+      case 'C6':
+      case 'C8':
+      case 'C10':
+        return raw[q]!;
+      case 'D7.a':
+        return raw.D7a!;
+      case 'D7.b':
+        return raw.D7b!;
+      case 'D7.total':
+        return [...raw.D7a!, ...raw.D7b!];
+      case 'D9.a':
+        return raw.D9a!;
+      case 'D9.b':
+        return raw.D9b!;
+      case 'D9.total':
+        return [...raw.D9a!, ...raw.D9b!];
+    }
+  };
   return new Map(names.map((q) => [q, pick(q)]));
 }
 

@@ -13,7 +13,7 @@ import { InputError } from '../../model/errors.js';
 import { closedFormRatio, evaluateClosedForm, evaluateClosedFormNumber, isZeroForm, type ClosedForm } from './closed-form.js';
 import { deriveQuantities, supportedQuantities, usesDistance, type DerivedQuantity, type SymbolicQuantity } from './derive.js';
 import { evaluateFormula, parseFormula, type Formula } from './formula.js';
-import { rfEqual, rfEvaluate } from './rational-function.js';
+import { AlgebraTooCostly, rfEqual, rfEvaluate, type RationalFunction } from './rational-function.js';
 import { pointByName, randomPoint, withDerived, xorshift32, type SamplePoint } from './sample-points.js';
 import { symbolTable, type Centre, type PairLayout, type SymbolTable } from './symbols.js';
 
@@ -81,11 +81,28 @@ function evaluators(table: SymbolTable, f: Formula): Evaluators {
   };
 }
 
-const num = (x: Fraction | number): number => (typeof x === 'number' ? x : x.valueOf());
+/**
+ * A fraction as the nearest double, also when numerator and denominator exceed the double range (valueOf would
+ * give ∞/∞ = NaN): both are shifted right to 64 significant bits first, and the shift difference is applied as
+ * a power of two (common practice).
+ */
+export function fractionToNumber(f: Fraction): number {
+  const direct = f.valueOf();
+  if (Number.isFinite(direct) && (direct !== 0 || f.n === 0n)) return direct;
+  const bits = (x: bigint) => x.toString(2).length;
+  const sn = Math.max(0, bits(f.n) - 64), sd = Math.max(0, bits(f.d) - 64);
+  const mant = Number(f.n >> BigInt(sn)) / Number(f.d >> BigInt(sd));
+  const sign = f.s < 0n ? -1 : 1;
+  // split the power of two so that neither factor overflows on its own
+  const k = sn - sd;
+  return sign * mant * 2 ** Math.trunc(k / 2) * 2 ** (k - Math.trunc(k / 2));
+}
+
+const num = (x: Fraction | number): number => (typeof x === 'number' ? x : fractionToNumber(x));
 
 /** |yours − engine|/|engine| (|yours| where the engine value is 0), exact when both are exact. */
 function deviation(y: Fraction | number, e: Fraction | number): number {
-  if (typeof y !== 'number' && typeof e !== 'number') return e.equals(0) ? y.abs().valueOf() : y.sub(e).abs().div(e.abs()).valueOf();
+  if (typeof y !== 'number' && typeof e !== 'number') return fractionToNumber(e.equals(0) ? y.abs() : y.sub(e).abs().div(e.abs()));
   const yn = num(y), en = num(e);
   return en === 0 ? Math.abs(yn) : Math.abs(yn - en) / Math.abs(en);
 }
@@ -106,13 +123,15 @@ export function checkFormula(request: CheckRequest): CheckResult {
 
   // Symbolic verdict.
   let symbolic: CheckResult['symbolic'];
-  if ('rational' in formula.exact) {
-    const same = rfEqual(formula.exact.rational, closedFormRatio(engine.form));
+  const same = 'rational' in formula.exact ? exactlyEqual(formula.exact.rational, engine.form) : undefined;
+  if (typeof same === 'boolean') {
     symbolic = same
       ? { status: 'identical', note: "your formula minus the engine's reduces to zero exactly" }
       : { status: 'differs', note: "your formula minus the engine's is a non-zero rational function" };
+  } else if (same !== undefined) {
+    symbolic = { status: 'undecided', note: `no exact comparison: ${same.tooCostly}` };
   } else {
-    symbolic = { status: 'undecided', note: `no exact comparison: ${formula.exact.reason}` };
+    symbolic = { status: 'undecided', note: `no exact comparison: ${'reason' in formula.exact ? formula.exact.reason : 'not rational'}` };
   }
 
   // Numeric verdict on seeded points (points where your formula is undefined are replaced).
@@ -121,7 +140,7 @@ export function checkFormula(request: CheckRequest): CheckResult {
   const yours: Array<Fraction | number> = [];
   const mine: Array<Fraction | number> = [];
   for (let attempt = 0; pts.length < points; attempt++) {
-    if (attempt > 20 * points) throw new InputError('expression', 'is undefined (division by zero or not finite) at almost every sample point');
+    if (attempt > 4 * points + 20) throw new InputError('expression', 'is undefined (division by zero or not finite) at almost every sample point');
     const p = randomPoint(table, rand);
     const y = ev.yours(p);
     if (y === undefined) continue;
@@ -130,7 +149,7 @@ export function checkFormula(request: CheckRequest): CheckResult {
     mine.push(ev.engine(engine.form, p));
   }
   const deviations = pts.map((_, i) => deviation(yours[i], mine[i]));
-  const maxDeviation = Math.max(...deviations);
+  const maxDeviation = deviations.reduce((a, b) => (b > a || Number.isNaN(b) ? b : a), 0);
   const measure = mine.some((e) => num(e) === 0) ? 'absolute' : 'relative';
   const exact = 'rational' in formula.exact;
   const identical = symbolic.status === 'undecided' ? maxDeviation <= NUMERIC_AGREEMENT : symbolic.status === 'identical';
@@ -153,6 +172,16 @@ export function checkFormula(request: CheckRequest): CheckResult {
     engine,
     engineShown: usesAlphaOnly(table, formula) ? deriveQuantities(layout, [quantity], 'alpha')[0] : engine,
   };
+}
+
+/** n_user·d_engine − n_engine·d_user = 0, or why the exact algebra was not attempted ({@link EXACT_LIMITS}). */
+function exactlyEqual(r: RationalFunction, form: ClosedForm): boolean | { tooCostly: string } {
+  try {
+    return rfEqual(r, closedFormRatio(form));
+  } catch (e) {
+    if (e instanceof AlgebraTooCostly) return { tooCostly: `exact algebra would be too costly (${e.message})` };
+    throw e;
+  }
 }
 
 /** A rational reading of a number, when it is a simple one (denominator ≤ 1000), or π times one. */

@@ -3,25 +3,37 @@
  * (a {@link RationalFunction} in q, m, w) when it is rational — alpha names become q²/(m w²), sqrt and fractional
  * powers of perfect-power monomials are taken exactly — or evaluated in floating point otherwise.
  */
-import { createRequire } from 'node:module';
+import { mathjsModule } from '../../lazy-modules.js';
 import Fraction from 'fraction.js';
 import type { ConstantNode, FunctionNode, MathNode, OperatorNode, ParenthesisNode, SymbolNode } from 'mathjs';
 import { InputError } from '../../model/errors.js';
 import type { PolyTerm } from './polynomial.js';
-import { rfAdd, rfConstant, rfDiv, rfMonomial, rfMul, rfPow, rfRoot, type RationalFunction } from './rational-function.js';
+import { AlgebraTooCostly, rfAdd, rfConstant, rfDiv, rfMonomial, rfMul, rfPow, rfRoot, type RationalFunction } from './rational-function.js';
 import { zeroExponents, type SymbolTable } from './symbols.js';
 
-/** Floating-point functions a formula may call (they make it non-rational, except sqrt/cbrt of perfect powers). */
-const FUNCTIONS: Record<string, (x: number) => number> = {
-  sqrt: Math.sqrt,
-  cbrt: Math.cbrt,
-  exp: Math.exp,
-  log: Math.log,
-  abs: Math.abs,
-};
-const CONSTANTS: Record<string, number> = { pi: Math.PI, e: Math.E };
+/**
+ * Floating-point functions a formula may call (they make it non-rational, except sqrt/cbrt of perfect powers).
+ * Maps, not object literals: a name such as `constructor` or `__proto__` must not find something inherited.
+ */
+const FUNCTIONS: ReadonlyMap<string, (x: number) => number> = new Map([
+  ['sqrt', Math.sqrt],
+  ['cbrt', Math.cbrt],
+  ['exp', Math.exp],
+  ['log', Math.log],
+  ['abs', Math.abs],
+]);
+const CONSTANTS: ReadonlyMap<string, number> = new Map([
+  ['pi', Math.PI],
+  ['e', Math.E],
+]);
 /** Larger powers are evaluated in floating point only. */
 const MAX_EXACT_POWER = 64;
+
+/**
+ * Stated limits on a formula (checked before any work): its length in characters and how deeply its
+ * parentheses nest. The tree itself is walked without recursion, so a long sum or product costs no stack.
+ */
+export const FORMULA_LIMITS = { maxLength: 20_000, maxNesting: 200 } as const;
 
 export interface Formula {
   /** The text as given. */
@@ -41,7 +53,7 @@ let parser: ((text: string) => MathNode) | undefined;
  * other commands should not pay. Synchronous, through the package's CommonJS entry point.
  */
 function parseMath(text: string): MathNode {
-  parser ??= (createRequire(import.meta.url)('mathjs') as typeof import('mathjs')).parse;
+  parser ??= mathjsModule().parse;
   return parser(text);
 }
 
@@ -59,31 +71,34 @@ function parseFailure(source: string, e: Error & { char?: number }): InputError 
  */
 export function parseFormula(source: string, table: SymbolTable, allowed: readonly string[]): Formula {
   if (source.trim() === '') throw new InputError(FIELD, `is empty; give a formula in ${allowed.join(', ')}`);
+  checkSize(source);
   let tree: MathNode;
   try {
     tree = parseMath(source);
   } catch (e) {
+    if (e instanceof RangeError) throw new InputError(FIELD, `is nested too deeply to be read; simplify it (limits: ${limitsText()})`);
     throw parseFailure(source, e as Error);
   }
   const names = new Set<string>();
   const unknown = new Set<string>();
   const unknownFunctions = new Set<string>();
-  tree.traverse((node, path, parent) => {
+  forEachNode(tree, (node, path, parent) => {
     switch (node.type) {
       case 'ConstantNode': {
         const v = (node as ConstantNode).value as unknown;
         if (typeof v !== 'number') throw new InputError(FIELD, `contains ${JSON.stringify(String(v))}, which is not a number`);
+        if (!Number.isFinite(v)) throw new InputError(FIELD, `contains a number beyond the double-precision range (largest about 1.8e308)`);
         return;
       }
       case 'SymbolNode': {
         const name = (node as SymbolNode).name;
         if (path === 'fn' && parent?.type === 'FunctionNode') {
-          if (!(name in FUNCTIONS) && !allowed.includes(name)) unknownFunctions.add(name);
+          if (!FUNCTIONS.has(name) && !allowed.includes(name)) unknownFunctions.add(name);
           if (allowed.includes(name)) names.add(name);
           return;
         }
         if (allowed.includes(name)) names.add(name);
-        else if (!(name in CONSTANTS)) unknown.add(name);
+        else if (!CONSTANTS.has(name)) unknown.add(name);
         return;
       }
       case 'OperatorNode': {
@@ -95,9 +110,10 @@ export function parseFormula(source: string, table: SymbolTable, allowed: readon
       }
       case 'FunctionNode': {
         const f = node as FunctionNode;
+        if (f.fn.type !== 'SymbolNode') throw new InputError(FIELD, `calls something that is not a name; allowed functions: ${[...FUNCTIONS.keys()].join(', ')}`);
         if (f.args.length !== 1) {
           const name = f.fn.name;
-          throw new InputError(FIELD, name in FUNCTIONS ? `${name} takes one argument, got ${f.args.length}` : `${name}(…) with ${f.args.length} arguments: write ${name}*(…)`);
+          throw new InputError(FIELD, FUNCTIONS.has(name) ? `${name} takes one argument, got ${f.args.length}` : `${name}(…) with ${f.args.length} arguments: write ${name}*(…)`);
         }
         return;
       }
@@ -126,16 +142,61 @@ export function parseFormula(source: string, table: SymbolTable, allowed: readon
     );
   }
   if (unknownFunctions.size > 0) {
-    throw new InputError(FIELD, `unknown function${unknownFunctions.size > 1 ? 's' : ''} ${[...unknownFunctions].sort().join(', ')}; allowed: ${Object.keys(FUNCTIONS).join(', ')}`);
+    throw new InputError(FIELD, `unknown function${unknownFunctions.size > 1 ? 's' : ''} ${[...unknownFunctions].sort().join(', ')}; allowed: ${[...FUNCTIONS.keys()].join(', ')}`);
   }
   let exact: Formula['exact'];
   try {
     exact = { rational: fold(tree, exactArithmetic(table)) };
   } catch (e) {
-    if (!(e instanceof NotRational)) throw e;
-    exact = { reason: e.message };
+    if (e instanceof NotRational) exact = { reason: e.message };
+    else if (e instanceof AlgebraTooCostly) exact = { reason: `exact algebra would be too costly (${e.message})` };
+    else throw e;
   }
   return { source, tree, names, exact };
+}
+
+/** The limits as one phrase, for messages. */
+const limitsText = () => `at most ${FORMULA_LIMITS.maxLength} characters, parentheses nested at most ${FORMULA_LIMITS.maxNesting} deep`;
+
+/** Refuse a formula beyond the stated length or parenthesis nesting before parsing it. */
+function checkSize(source: string): void {
+  if (source.length > FORMULA_LIMITS.maxLength) {
+    throw new InputError(FIELD, `is ${source.length} characters long; the limit is ${FORMULA_LIMITS.maxLength} (${limitsText()})`);
+  }
+  let depth = 0;
+  for (const ch of source) {
+    if (ch === '(' || ch === '[' || ch === '{') depth++;
+    else if (ch === ')' || ch === ']' || ch === '}') depth--;
+    if (depth > FORMULA_LIMITS.maxNesting) {
+      throw new InputError(FIELD, `nests parentheses more than ${FORMULA_LIMITS.maxNesting} deep (${limitsText()})`);
+    }
+  }
+}
+
+/** The operands of a node in evaluation order (a call's name is not an operand). */
+function operands(node: MathNode): readonly MathNode[] {
+  switch (node.type) {
+    case 'ParenthesisNode':
+      return [(node as ParenthesisNode).content];
+    case 'FunctionNode':
+      return (node as FunctionNode).args;
+    case 'OperatorNode':
+      return (node as OperatorNode).args;
+    default:
+      return [];
+  }
+}
+
+/** Visit every node (pre-order) with an explicit stack: no recursion, so any depth is safe. */
+function forEachNode(root: MathNode, visit: (node: MathNode, path: string | null, parent: MathNode | null) => void): void {
+  const stack: Array<[MathNode, string | null, MathNode | null]> = [[root, null, null]];
+  while (stack.length > 0) {
+    const [node, path, parent] = stack.pop()!;
+    visit(node, path, parent);
+    const children: Array<[MathNode, string | null, MathNode | null]> = [];
+    node.forEach((child, childPath) => children.push([child, childPath, node]));
+    for (let i = children.length - 1; i >= 0; i--) stack.push(children[i]);
+  }
 }
 
 class NotRational extends Error {}
@@ -152,7 +213,7 @@ function exactNumber(x: number): Fraction {
 interface Arithmetic<T> {
   constant(x: number): T;
   symbol(name: string): T;
-  call(name: keyof typeof FUNCTIONS, x: T): T;
+  call(name: string, x: T): T;
   neg(a: T): T;
   add(a: T, b: T): T;
   sub(a: T, b: T): T;
@@ -161,39 +222,57 @@ interface Arithmetic<T> {
   pow(a: T, b: T): T;
 }
 
-/** Evaluate a checked formula tree in an arithmetic. `wa(wa + wb)` parses as a call of wa: it is the product. */
-function fold<T>(node: MathNode, ar: Arithmetic<T>): T {
-  const rec = (x: MathNode) => fold(x, ar);
+/**
+ * Evaluate a checked formula tree in an arithmetic, post-order with an explicit stack (no recursion, so a sum of
+ * thousands of terms is fine). `wa(wa + wb)` parses as a call of wa: it is the product.
+ */
+function fold<T>(root: MathNode, ar: Arithmetic<T>): T {
+  const stack: Array<{ node: MathNode; expanded: boolean }> = [{ node: root, expanded: false }];
+  const values: T[] = [];
+  while (stack.length > 0) {
+    const top = stack.pop()!;
+    const kids = operands(top.node);
+    if (!top.expanded && kids.length > 0) {
+      stack.push({ node: top.node, expanded: true });
+      for (let i = kids.length - 1; i >= 0; i--) stack.push({ node: kids[i], expanded: false });
+      continue;
+    }
+    const args = values.splice(values.length - kids.length, kids.length);
+    values.push(combine(top.node, args, ar));
+  }
+  return values[0];
+}
+
+/** One node's value from its operands' values. */
+function combine<T>(node: MathNode, args: T[], ar: Arithmetic<T>): T {
   switch (node.type) {
     case 'ConstantNode':
       return ar.constant((node as ConstantNode).value as number);
     case 'ParenthesisNode':
-      return rec((node as ParenthesisNode).content);
+      return args[0];
     case 'SymbolNode':
       return ar.symbol((node as SymbolNode).name);
     case 'FunctionNode': {
-      const f = node as FunctionNode;
-      const name = f.fn.name;
-      return name in FUNCTIONS ? ar.call(name, rec(f.args[0])) : ar.mul(ar.symbol(name), rec(f.args[0]));
+      const name = (node as FunctionNode).fn.name;
+      return FUNCTIONS.has(name) ? ar.call(name, args[0]) : ar.mul(ar.symbol(name), args[0]);
     }
     case 'OperatorNode': {
-      const op = node as OperatorNode<never, never>;
-      const [a, b] = op.args;
-      switch (op.fn as string) {
+      const [a, b] = args;
+      switch ((node as OperatorNode).fn as string) {
         case 'unaryPlus':
-          return rec(a);
+          return a;
         case 'unaryMinus':
-          return ar.neg(rec(a));
+          return ar.neg(a);
         case 'add':
-          return ar.add(rec(a), rec(b));
+          return ar.add(a, b);
         case 'subtract':
-          return ar.sub(rec(a), rec(b));
+          return ar.sub(a, b);
         case 'multiply':
-          return ar.mul(rec(a), rec(b));
+          return ar.mul(a, b);
         case 'divide':
-          return ar.div(rec(a), rec(b));
+          return ar.div(a, b);
         case 'pow':
-          return ar.pow(rec(a), rec(b));
+          return ar.pow(a, b);
       }
     }
   }
@@ -214,7 +293,7 @@ function exactArithmetic(table: SymbolTable): Arithmetic<RationalFunction> {
   return {
     constant: (x) => rfConstant(exactNumber(x), n),
     symbol(name) {
-      if (name in CONSTANTS) throw new NotRational(`it uses the constant ${name}`);
+      if (CONSTANTS.has(name)) throw new NotRational(`it uses the constant ${name}`);
       return symbolRational(table, name);
     },
     call(name, x) {
@@ -265,8 +344,8 @@ function symbolRational(table: SymbolTable, name: string): RationalFunction {
 export function evaluateFormula(node: MathNode, values: ReadonlyMap<string, number>): number {
   return fold<number>(node, {
     constant: (x) => x,
-    symbol: (name) => values.get(name) ?? CONSTANTS[name],
-    call: (name, x) => FUNCTIONS[name](x),
+    symbol: (name) => values.get(name) ?? CONSTANTS.get(name) ?? NaN,
+    call: (name, x) => FUNCTIONS.get(name)!(x),
     neg: (a) => -a,
     add: (a, b) => a + b,
     sub: (a, b) => a - b,

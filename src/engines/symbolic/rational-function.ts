@@ -16,6 +16,44 @@ import {
   type Poly,
 } from './polynomial.js';
 
+/**
+ * Stated limits of the exact algebra, so that a formula such as (qa+qb+ma+mb+wa+wb)^64 (millions of terms when
+ * expanded) is answered in about a second by the numeric comparison instead: the term pairs one product may
+ * multiply, the terms any intermediate polynomial may hold, the largest |exponent| of a parameter and the size of
+ * a coefficient's numerator and denominator in bits.
+ */
+export const EXACT_LIMITS = { maxProductWork: 400_000, maxTerms: 5_000, maxExponent: 256, maxCoefficientBits: 512 } as const;
+
+/** 2^maxCoefficientBits: a numerator or denominator beyond it makes the exact algebra too slow (BigInt work). */
+const COEFFICIENT_BOUND = 1n << BigInt(EXACT_LIMITS.maxCoefficientBits);
+
+/** The exact algebra would exceed {@link EXACT_LIMITS}; the message says which limit. */
+export class AlgebraTooCostly extends Error {
+  override readonly name = 'AlgebraTooCostly';
+}
+
+/** A polynomial within the limits, else {@link AlgebraTooCostly}. */
+function withinLimits(p: Poly): Poly {
+  if (p.size > EXACT_LIMITS.maxTerms) throw new AlgebraTooCostly(`an intermediate result has ${p.size} terms, limit ${EXACT_LIMITS.maxTerms}`);
+  for (const t of p.values()) {
+    if (t.c.n >= COEFFICIENT_BOUND || t.c.d >= COEFFICIENT_BOUND) {
+      throw new AlgebraTooCostly(`a coefficient beyond ${EXACT_LIMITS.maxCoefficientBits} bits`);
+    }
+    for (const k of t.e) {
+      if (Math.abs(k) > EXACT_LIMITS.maxExponent) throw new AlgebraTooCostly(`a power ${k} of a parameter, limit ${EXACT_LIMITS.maxExponent}`);
+    }
+  }
+  return p;
+}
+
+/** P · Q within {@link EXACT_LIMITS} (the work is checked before multiplying). */
+function product(p: Poly, q: Poly): Poly {
+  if (p.size * q.size > EXACT_LIMITS.maxProductWork) {
+    throw new AlgebraTooCostly(`a product of ${p.size} by ${q.size} terms, limit ${EXACT_LIMITS.maxProductWork} term pairs`);
+  }
+  return withinLimits(mulPoly(p, q));
+}
+
 export interface RationalFunction {
   num: Poly;
   den: Poly;
@@ -29,10 +67,10 @@ function normalise(r: RationalFunction, n: number): RationalFunction {
     d.e.map((x) => -x),
     d.c.inverse(),
   );
-  return { num: mulPoly(r.num, inv), den: constantPoly(1, n) };
+  return { num: product(r.num, inv), den: constantPoly(1, n) };
 }
 
-export const rfConstant = (c: Fraction, n: number): RationalFunction => ({ num: constantPoly(c, n), den: constantPoly(1, n) });
+export const rfConstant = (c: Fraction, n: number): RationalFunction => ({ num: withinLimits(constantPoly(c, n)), den: constantPoly(1, n) });
 
 /** c · x^e. */
 export const rfMonomial = (e: readonly number[], c: Fraction = new Fraction(1)): RationalFunction => ({
@@ -43,17 +81,17 @@ export const rfMonomial = (e: readonly number[], c: Fraction = new Fraction(1)):
 const sameDen = (a: RationalFunction, b: RationalFunction) => isZeroPoly(subPoly(a.den, b.den));
 
 export function rfAdd(a: RationalFunction, b: RationalFunction, n: number, sign: 1 | -1 = 1): RationalFunction {
-  if (sameDen(a, b)) return { num: linearCombination(1, a.num, sign, b.num), den: a.den };
-  return normalise({ num: linearCombination(1, mulPoly(a.num, b.den), sign, mulPoly(b.num, a.den)), den: mulPoly(a.den, b.den) }, n);
+  if (sameDen(a, b)) return { num: withinLimits(linearCombination(1, a.num, sign, b.num)), den: a.den };
+  return normalise({ num: linearCombination(1, product(a.num, b.den), sign, product(b.num, a.den)), den: product(a.den, b.den) }, n);
 }
 
 export const rfMul = (a: RationalFunction, b: RationalFunction, n: number): RationalFunction =>
-  normalise({ num: mulPoly(a.num, b.num), den: mulPoly(a.den, b.den) }, n);
+  normalise({ num: product(a.num, b.num), den: product(a.den, b.den) }, n);
 
 /** a / b; undefined when b is identically zero. */
 export function rfDiv(a: RationalFunction, b: RationalFunction, n: number): RationalFunction | undefined {
   if (isZeroPoly(b.num)) return undefined;
-  return normalise({ num: mulPoly(a.num, b.den), den: mulPoly(a.den, b.num) }, n);
+  return normalise({ num: product(a.num, b.den), den: product(a.den, b.num) }, n);
 }
 
 /** a^k for an integer k (undefined for a negative power of zero). */
@@ -95,8 +133,8 @@ export function rfRoot(a: RationalFunction, k: number): RationalFunction | undef
   );
 }
 
-/** True when a − b is identically zero. */
-export const rfEqual = (a: RationalFunction, b: RationalFunction): boolean => isZeroPoly(subPoly(mulPoly(a.num, b.den), mulPoly(b.num, a.den)));
+/** True when a − b is identically zero ({@link AlgebraTooCostly} beyond the limits). */
+export const rfEqual = (a: RationalFunction, b: RationalFunction): boolean => isZeroPoly(subPoly(product(a.num, b.den), product(b.num, a.den)));
 
 /** Exact value at a point; undefined where the denominator vanishes. */
 export function rfEvaluate(a: RationalFunction, values: readonly Fraction[]): Fraction | undefined {

@@ -185,11 +185,17 @@ export interface SymbolicCoefficients {
   /** lim R^7 <mu_z> on A and on B (e a0^8). */
   D7a?: Term[];
   D7b?: Term[];
+  /** The R^-9 coefficient of <mu_z> on A and on B (e a0^10): the chains V2·V5 and V3·V4. */
+  D9a?: Term[];
+  D9b?: Term[];
 }
 
 export interface SymbolicRequest {
   energyPowers: ReadonlyArray<6 | 8 | 10>;
+  /** D7 (the V2·V3 chain). */
   dipoles: boolean;
+  /** D9 (the V2·V5 and V3·V4 chains; V2·V5 is skipped for isotropic layouts, where it vanishes by symmetry). */
+  dipoles9?: boolean;
 }
 
 /** Run the symbolic chains for the requested quantities. */
@@ -221,29 +227,39 @@ export function symbolicCoefficients(table: SymbolTable, request: SymbolicReques
     for (let n = 2; n <= power - 4; n++) all.push(...dot(v0(n), phiOf(power - 2 - n)).values());
     out[`C${power}`] = finish(all);
   }
-  if (request.dipoles) {
-    const phi2 = phiOf(2);
-    const phi3 = phiOf(3);
+  /** The coefficient of λ_n λ_n' in <mu_z> (the same expression as rspt.ts), as raw terms per centre. */
+  const mixed = (n: number, np: number) => {
+    const phiN = phiOf(n);
+    const phiNp = phiOf(np);
     const one = [unit];
     const source = linearCombination([
-      [one, applyCoupling(table, 2, phi3)],
-      [negated(expectation(v0(2))), phi3],
-      [one, applyCoupling(table, 3, phi2)],
-      [negated(expectation(v0(3))), phi2],
+      [one, applyCoupling(table, n, phiNp)],
+      [negated(expectation(v0(n))), phiNp],
+      [one, applyCoupling(table, np, phiN)],
+      [negated(expectation(v0(np))), phiN],
     ]);
-    const psi23 = reducedResolvent(table, source);
-    const overlap = dot(phi2, phi3);
-    const dipole = (centre: Centre): Term[] => {
+    const psi = reducedResolvent(table, source);
+    const overlap = dot(phiN, phiNp);
+    return (centre: Centre): Term[] => {
       const mu0 = applyDipole(table, centre, 2, ground);
       const all: Term[] = [];
       const twice = (t: Term): Term => ({ ...t, c: t.c.mul(2) });
-      for (const t of dot(mu0, psi23).values()) all.push(twice(t));
-      for (const t of dot(phi2, applyDipole(table, centre, 2, phi3)).values()) all.push(twice(t));
+      for (const t of dot(mu0, psi).values()) all.push(twice(t));
+      for (const t of dot(phiN, applyDipole(table, centre, 2, phiNp)).values()) all.push(twice(t));
       for (const s of negated(expectation(mu0))) for (const t of overlap.values()) all.push(mulTerms(twice(t), s));
-      return finish(all);
+      return all;
     };
-    out.D7a = dipole('a');
-    out.D7b = dipole('b');
+  };
+  if (request.dipoles) {
+    const d7 = mixed(2, 3);
+    out.D7a = finish(d7('a'));
+    out.D7b = finish(d7('b'));
+  }
+  if (request.dipoles9) {
+    // V2·V5 vanishes for spherical centres (exact/series-terms.ts); computed only for anisotropic layouts
+    const chains = table.layout.anisotropic ? [mixed(2, 5), mixed(3, 4)] : [mixed(3, 4)];
+    out.D9a = finish(chains.flatMap((f) => f('a')));
+    out.D9b = finish(chains.flatMap((f) => f('b')));
   }
   return out;
 }

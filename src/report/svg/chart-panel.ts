@@ -1,10 +1,12 @@
 /**
- * One x–y chart panel in the style of a journal figure: a closed frame with inward ticks on all four sides,
- * labelled ticks on the left and bottom, axis titles with units, clipped curves with optional markers and
- * dashes, and a legend placed in the corner that covers the fewest data points.
+ * One x–y chart panel in the house style (src/report/svg/house-style.ts): open axes on the left and bottom with
+ * outward ticks, faint guide lines at the labelled y values, axis titles with units, clipped curves with marker
+ * shapes and dashes (model curves drawn above the data; untrusted points never joined to the line), a tag and
+ * subject above the panel and the panel's own unframed legend in a row between them and the plot area.
  */
 import { el, pathThrough, px, text, type Attrs } from './svg-markup.js';
 import { makeScale, niceDomain, type Scale, type ScaleKind } from './scales.js';
+import { CHAR_WIDTH, FONT_SIZE, GUIDE, INK, MUTED_INK, PANEL, PAPER, type MarkerShape } from './house-style.js';
 
 export interface Series {
   /** Rich-text legend label; empty to leave the series out of the legend. */
@@ -17,6 +19,12 @@ export interface Series {
   /** Draw a marker at every point; `hollow[i]` draws an open marker (e.g. an untrusted value). */
   markers?: boolean;
   hollow?: readonly boolean[];
+  /** Marker shape (default circle). */
+  shape?: MarkerShape;
+  /** Points never joined to the line (e.g. untrusted values): drawn as markers only. */
+  detached?: readonly boolean[];
+  /** "model" curves (asymptotic forms, references) are drawn above the data. */
+  layer?: 'data' | 'model';
 }
 
 export interface AxisSpec {
@@ -31,8 +39,9 @@ export interface PanelSpec {
   x: AxisSpec;
   y: AxisSpec;
   series: readonly Series[];
-  /** Panel tag drawn in the top-left corner, e.g. "(a)". */
+  /** Panel tag drawn above the top-left corner, e.g. "a", followed by `subject`. */
   tag?: string;
+  subject?: string;
   /** Extra rich-text lines drawn under the legend. */
   notes?: readonly string[];
 }
@@ -44,9 +53,25 @@ export interface Box {
   height: number;
 }
 
-const FONT = 13;
-/** Rough width of rich text in DejaVu Sans at `size` px (markup characters do not count). */
-export const textWidth = (label: string, size = FONT): number => label.replace(/[\^_]\{([^}]*)\}/g, '$1').length * size * 0.6;
+const FONT = FONT_SIZE;
+/** Rough width of rich text in the house font at `size` px (markup characters do not count). */
+export const textWidth = (label: string, size = FONT): number => label.replace(/[\^_]\{([^}]*)\}/g, '$1').length * size * CHAR_WIDTH;
+
+/** A marker of `shape` centred on (x, y); open markers are filled with paper. */
+export function marker(shape: MarkerShape, x: number, y: number, colour: string, open = false): string {
+  const r = PANEL.markerRadius;
+  const paint = { fill: open ? PAPER : colour, stroke: colour, 'stroke-width': 1.2 };
+  switch (shape) {
+    case 'square':
+      return el('rect', { x: x - r * 0.9, y: y - r * 0.9, width: 1.8 * r, height: 1.8 * r, ...paint });
+    case 'triangle':
+      return el('path', { d: `M${px(x)} ${px(y - 1.15 * r)}L${px(x + r)} ${px(y + 0.75 * r)}L${px(x - r)} ${px(y + 0.75 * r)}Z`, ...paint });
+    case 'diamond':
+      return el('path', { d: `M${px(x)} ${px(y - 1.2 * r)}L${px(x + 1.2 * r)} ${px(y)}L${px(x)} ${px(y + 1.2 * r)}L${px(x - 1.2 * r)} ${px(y)}Z`, ...paint });
+    default:
+      return el('circle', { cx: x, cy: y, r, ...paint });
+  }
+}
 
 function usable(kind: ScaleKind, v: number): boolean {
   return Number.isFinite(v) && (kind === 'linear' || v > 0);
@@ -63,33 +88,62 @@ function axisTicks(scale: Scale, horizontal: boolean, box: Box): string[] {
   const out: string[] = [];
   for (const t of scale.ticks()) {
     const p = scale.map(t.value);
-    const len = t.major ? 6 : 3.5;
+    const len = t.major ? PANEL.tick : PANEL.minorTick;
     if (horizontal) {
-      out.push(el('path', { d: `M${px(p)} ${px(box.y + box.height)}v${-len}M${px(p)} ${px(box.y)}v${len}`, stroke: '#000', 'stroke-width': 0.9 }));
-      if (t.label) out.push(text(p, box.y + box.height + FONT + 5, t.label, { 'text-anchor': 'middle' }));
+      out.push(el('path', { d: `M${px(p)} ${px(box.y + box.height)}v${len}`, stroke: INK, 'stroke-width': PANEL.axisWidth }));
+      if (t.label) out.push(text(p, box.y + box.height + FONT + 7, t.label, { 'text-anchor': 'middle' }));
     } else {
-      out.push(el('path', { d: `M${px(box.x)} ${px(p)}h${len}M${px(box.x + box.width)} ${px(p)}h${-len}`, stroke: '#000', 'stroke-width': 0.9 }));
-      if (t.label) out.push(text(box.x - 6, p + FONT * 0.35, t.label, { 'text-anchor': 'end' }));
+      out.push(el('path', { d: `M${px(box.x)} ${px(p)}h${-len}`, stroke: INK, 'stroke-width': PANEL.axisWidth }));
+      if (t.label) out.push(text(box.x - 8, p + FONT * 0.35, t.label, { 'text-anchor': 'end' }));
     }
   }
   return out;
 }
 
-/** A one-line legend (line sample, optional marker, label per entry) centred on (x, y), e.g. above a row of panels. */
-export function legendRow(entries: ReadonlyArray<Pick<Series, 'label' | 'colour' | 'dash' | 'width' | 'markers'> & { open?: boolean }>, x: number, y: number): string {
-  const items: string[] = [];
-  const total = entries.reduce((w, s) => w + 54 + textWidth(s.label), -22);
-  let cx = x - total / 2;
-  for (const s of entries) {
-    items.push(el('path', { d: `M${px(cx)} ${px(y)}h26`, stroke: s.colour, 'stroke-width': s.width ?? 1.6, 'stroke-dasharray': s.dash, fill: 'none' }));
-    if (s.markers) items.push(el('circle', { cx: cx + 13, cy: y, r: 2.6, fill: s.open ? '#ffffff' : s.colour, stroke: s.colour, 'stroke-width': 1.1 }));
-    items.push(text(cx + 32, y + FONT * 0.35, s.label));
-    cx += 32 + textWidth(s.label) + 22;
-  }
-  return el('g', {}, items);
+/** Faint horizontal guide lines at the labelled y values (drawn under the data). */
+function guides(scale: Scale, box: Box): string[] {
+  return scale
+    .ticks()
+    .filter((t) => t.label)
+    .map((t) => el('path', { d: `M${px(box.x)} ${px(scale.map(t.value))}h${px(box.width)}`, stroke: GUIDE, 'stroke-width': PANEL.guideWidth }));
 }
 
-/** Draw one panel into `box` (the frame; labels go outside it). `id` must be unique in the document. */
+/** A legend entry: line sample, optional marker, label. */
+type LegendEntry = Pick<Series, 'label' | 'colour' | 'dash' | 'width' | 'markers' | 'shape'> & { open?: boolean };
+
+const entryWidth = (s: LegendEntry) => 32 + textWidth(s.label) + 18;
+
+/**
+ * Legend rows (line sample, marker, label per entry), unframed, starting at (x, y) and wrapping at `maxWidth`;
+ * returns the markup and the number of rows.
+ */
+export function legendRows(entries: readonly LegendEntry[], x: number, y: number, maxWidth: number): { markup: string; rows: number } {
+  const items: string[] = [];
+  let cx = x, cy = y, rows = entries.length ? 1 : 0;
+  for (const s of entries) {
+    if (cx > x && cx + entryWidth(s) - 18 > x + maxWidth) {
+      cx = x;
+      cy += PANEL.legendRow;
+      rows++;
+    }
+    items.push(el('path', { d: `M${px(cx)} ${px(cy)}h24`, stroke: s.colour, 'stroke-width': s.width ?? PANEL.lineWidth, 'stroke-dasharray': s.dash, fill: 'none' }));
+    if (s.markers) items.push(marker(s.shape ?? 'circle', cx + 12, cy, s.colour, s.open));
+    items.push(text(cx + 30, cy + FONT * 0.35, s.label, { 'font-size': FONT - 1 }));
+    cx += entryWidth(s);
+  }
+  return { markup: el('g', {}, items), rows };
+}
+
+/** Height the legend of `spec` takes above a panel of width `width` (for layout). */
+export function legendHeight(spec: PanelSpec, width: number): number {
+  const entries = spec.series.filter((s) => s.label);
+  return legendRows(entries, 0, 0, width).rows * PANEL.legendRow;
+}
+
+/**
+ * Draw one panel into `box` (the plot area; axes, labels, tag and legend go outside it). The legend takes
+ * {@link legendHeight} above the box, the tag a line above that. `id` must be unique in the document.
+ */
 export function chartPanel(spec: PanelSpec, box: Box, id: string): string {
   const xs = dataDomain(spec.x, spec.series.flatMap((s) => s.points.map((p) => p[0])));
   const ys = dataDomain(spec.y, spec.series.flatMap((s) => s.points.filter((p) => usable(spec.x.kind, p[0]) && p[0] >= xs[0] && p[0] <= xs[1]).map((p) => p[1])));
@@ -98,58 +152,39 @@ export function chartPanel(spec: PanelSpec, box: Box, id: string): string {
   const map = (p: readonly [number, number]): [number, number] =>
     usable(spec.x.kind, p[0]) && usable(spec.y.kind, p[1]) ? [sx.map(p[0]), sy.map(p[1])] : [NaN, NaN];
   const parts: string[] = [];
-  parts.push(el('defs', {}, el('clipPath', { id: `${id}-clip` }, el('rect', { x: box.x, y: box.y, width: box.width, height: box.height }))));
+  parts.push(el('defs', {}, el('clipPath', { id: `${id}-clip` }, el('rect', { x: box.x - 4, y: box.y - 4, width: box.width + 8, height: box.height + 8 }))));
+  parts.push(...guides(sy, box));
 
-  const curves: string[] = [];
-  const marks: string[] = [];
-  const screen: Array<[number, number]> = [];
+  const layers: Record<'data' | 'model', string[]> = { data: [], model: [] };
   for (const s of spec.series) {
     const pts = s.points.map(map);
-    screen.push(...pts.filter((p) => Number.isFinite(p[0])));
-    const attrs: Attrs = { d: pathThrough(pts), fill: 'none', stroke: s.colour, 'stroke-width': s.width ?? 1.6, 'stroke-linejoin': 'round', 'stroke-dasharray': s.dash };
-    curves.push(el('path', attrs));
+    const joined = pts.map((p, i) => (s.detached?.[i] ? ([NaN, NaN] as [number, number]) : p));
+    const layer = layers[s.layer ?? 'data'];
+    layer.push(el('path', { d: pathThrough(joined), fill: 'none', stroke: s.colour, 'stroke-width': s.width ?? PANEL.lineWidth, 'stroke-linejoin': 'round', 'stroke-dasharray': s.dash }));
     if (s.markers)
       pts.forEach(([x, y], i) => {
-        if (!Number.isFinite(x)) return;
-        const open = s.hollow?.[i] ?? false;
-        marks.push(el('circle', { cx: x, cy: y, r: 2.6, fill: open ? '#ffffff' : s.colour, stroke: s.colour, 'stroke-width': 1.1 }));
+        if (Number.isFinite(x)) layer.push(marker(s.shape ?? 'circle', x, y, s.colour, s.hollow?.[i] ?? false));
       });
   }
-  parts.push(el('g', { 'clip-path': `url(#${id}-clip)` }, [...curves, ...marks]));
+  parts.push(el('g', { 'clip-path': `url(#${id}-clip)` }, [...layers.data, ...layers.model]));
 
-  // frame, ticks, titles
-  parts.push(el('rect', { x: box.x, y: box.y, width: box.width, height: box.height, fill: 'none', stroke: '#000', 'stroke-width': 1.1 }));
+  // open axes, outward ticks, titles
+  const bottom = box.y + box.height;
+  parts.push(el('path', { d: `M${px(box.x)} ${px(box.y)}V${px(bottom)}H${px(box.x + box.width)}`, fill: 'none', stroke: INK, 'stroke-width': PANEL.axisWidth }));
   parts.push(...axisTicks(sx, true, box), ...axisTicks(sy, false, box));
-  parts.push(text(box.x + box.width / 2, box.y + box.height + 2 * FONT + 14, spec.x.label, { 'text-anchor': 'middle', 'font-size': FONT + 1 }));
-  const yTitleX = box.x - 58;
-  parts.push(text(yTitleX, box.y + box.height / 2, spec.y.label, { 'text-anchor': 'middle', 'font-size': FONT + 1, transform: `rotate(-90 ${px(yTitleX)} ${px(box.y + box.height / 2)})` }));
-  if (spec.tag) parts.push(text(box.x - 4, box.y - 9, spec.tag, { 'font-weight': 'bold', 'font-size': FONT + 1 }));
+  parts.push(text(box.x + box.width / 2, bottom + 2 * FONT + 16, spec.x.label, { 'text-anchor': 'middle' }));
+  const yTitleX = box.x - 62;
+  parts.push(text(yTitleX, box.y + box.height / 2, spec.y.label, { 'text-anchor': 'middle', transform: `rotate(-90 ${px(yTitleX)} ${px(box.y + box.height / 2)})` }));
 
-  // legend in the emptiest corner
-  const entries = spec.series.filter((s) => s.label);
-  const notes = spec.notes ?? [];
-  if (entries.length + notes.length > 0) {
-    const lineH = FONT + 6;
-    const w = 38 + Math.max(...entries.map((s) => textWidth(s.label)), ...notes.map((n) => textWidth(n, FONT - 1)), 40);
-    const h = lineH * (entries.length + notes.length) + 8;
-    const pad = 10;
-    const corners: Array<[number, number]> = [
-      [box.x + box.width - w - pad, box.y + pad],
-      [box.x + pad, box.y + pad],
-      [box.x + box.width - w - pad, box.y + box.height - h - pad],
-      [box.x + pad, box.y + box.height - h - pad],
-    ];
-    const covered = ([lx, ly]: [number, number]) => screen.filter(([x, y]) => x >= lx - 4 && x <= lx + w + 4 && y >= ly - 4 && y <= ly + h + 4).length;
-    const [lx, ly] = corners.reduce((best, c) => (covered(c) < covered(best) ? c : best));
-    const items: string[] = [el('rect', { x: lx, y: ly, width: w, height: h, fill: '#ffffff', 'fill-opacity': 0.9, stroke: '#999999', 'stroke-width': 0.6 })];
-    entries.forEach((s, i) => {
-      const cy = ly + 4 + lineH * (i + 0.5);
-      items.push(el('path', { d: `M${px(lx + 8)} ${px(cy)}h26`, stroke: s.colour, 'stroke-width': s.width ?? 1.6, 'stroke-dasharray': s.dash, fill: 'none' }));
-      if (s.markers) items.push(el('circle', { cx: lx + 21, cy, r: 2.6, fill: s.colour, stroke: s.colour }));
-      items.push(text(lx + 40, cy + FONT * 0.35, s.label));
-    });
-    notes.forEach((n, i) => items.push(text(lx + 8, ly + 4 + lineH * (entries.length + i + 0.5) + FONT * 0.35, n, { 'font-size': FONT - 1, fill: '#333333' })));
-    parts.push(el('g', {}, items));
+  // legend row(s) right above the plot area, tag and subject above the legend
+  const entries = spec.series.filter((s) => s.label).map((s) => ({ ...s, open: false }));
+  const height = legendHeight(spec, box.width);
+  if (entries.length) parts.push(legendRows(entries, box.x, box.y - height + PANEL.legendRow / 2 - 6, box.width).markup);
+  if (spec.tag || spec.subject) {
+    const y = box.y - height - 12;
+    parts.push(text(box.x - 62, y, `${spec.tag ?? ''}`, { 'font-size': FONT + 2 }));
+    if (spec.subject) parts.push(text(box.x - 44, y, spec.subject, { fill: MUTED_INK }));
   }
+  for (const [i, n] of (spec.notes ?? []).entries()) parts.push(text(box.x + 8, box.y + 14 + i * (FONT + 4), n, { 'font-size': FONT - 2, fill: MUTED_INK }));
   return el('g', {}, parts);
 }

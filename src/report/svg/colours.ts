@@ -1,29 +1,32 @@
 /**
- * Colours of the plots: a small qualitative palette for curves (distinguishable in colour and when printed in
- * grey) and a diverging map for signed quantities, white at zero, blue for negative (loss) and red for
- * positive (gain). The diverging anchors are our own choice, interpolated linearly in sRGB.
+ * Colour helpers of the plots: the diverging map of the house style (src/report/svg/house-style.ts) for signed
+ * quantities, interpolated linearly in sRGB between its anchors, and `#rrggbb` text.
  */
+import { DIVERGING_ANCHORS, DIVERGING_STEPS, SERIES_COLOURS } from './house-style.js';
 
-/** Curve colours, in order of use. */
-export const SERIES_COLOURS = ['#1f5a96', '#c2461f', '#222222', '#4f8a3a', '#7a4f9a'] as const;
+export { SERIES_COLOURS };
 
-/** Anchors of the diverging map at t = −1, −0.5, 0, 0.5, 1 (RGB, 0…255). */
-const DIVERGING: ReadonlyArray<readonly [number, number, number]> = [
-  [24, 58, 120],
-  [110, 160, 210],
-  [250, 250, 250],
-  [232, 130, 96],
-  [140, 22, 30],
-];
-
-/** RGB of t ∈ [−1, 1] on the diverging map (clamped). */
+/** RGB of t ∈ [−1, 1] on the diverging map (clamped): −1 strongest loss, 0 none, +1 strongest gain. */
 export function divergingRgb(t: number): [number, number, number] {
   const u = (Math.max(-1, Math.min(1, Number.isFinite(t) ? t : 0)) + 1) * 2; // 0 … 4
   const k = Math.min(3, Math.floor(u));
   const f = u - k;
-  const a = DIVERGING[k], b = DIVERGING[k + 1];
+  const a = DIVERGING_ANCHORS[k], b = DIVERGING_ANCHORS[k + 1];
   return [0, 1, 2].map((i) => Math.round(a[i] + (b[i] - a[i]) * f)) as [number, number, number];
 }
+
+/**
+ * The band of t on the stepped map: round(t · DIVERGING_STEPS), from −DIVERGING_STEPS to DIVERGING_STEPS; band k
+ * holds |t| within ½/DIVERGING_STEPS of k/DIVERGING_STEPS, so the band edges (the contour levels of the density
+ * figure) are at (k − ½)/DIVERGING_STEPS and band 0 (|t| below the first edge) is the paper tone.
+ */
+export function divergingBand(t: number): number {
+  const v = Math.max(-1, Math.min(1, Number.isFinite(t) ? t : 0));
+  return Math.sign(v) * Math.min(DIVERGING_STEPS, Math.round(Math.abs(v) * DIVERGING_STEPS));
+}
+
+/** Colour of a band: the map at k/DIVERGING_STEPS. */
+export const bandRgb = (band: number): [number, number, number] => divergingRgb(band / DIVERGING_STEPS);
 
 /** `#rrggbb` of an RGB triple. */
 export const hex = ([r, g, b]: readonly number[]): string => '#' + [r, g, b].map((v) => v.toString(16).padStart(2, '0')).join('');

@@ -4,6 +4,8 @@
  * `<tspan>` and relative `dy` shifts (supported by browsers and by resvg alike). SVG 1.1 (W3C).
  */
 
+import { FONT_FAMILY, FONT_SIZE, INK, PAPER } from './house-style.js';
+
 export type Attrs = Record<string, string | number | undefined>;
 
 /** Escape the XML special characters of text and attribute values. */
@@ -93,10 +95,11 @@ export function svgDocument(width: number, height: number, body: readonly string
         width,
         height,
         viewBox: `0 0 ${px(width)} ${px(height)}`,
-        'font-family': 'DejaVu Sans, Helvetica, Arial, sans-serif',
-        'font-size': 13,
+        'font-family': FONT_FAMILY,
+        'font-size': FONT_SIZE,
+        fill: INK,
       },
-      [title ? el('title', {}, escapeXml(title)) : '', el('rect', { x: 0, y: 0, width, height, fill: '#ffffff' }), ...body],
+      [title ? el('title', {}, escapeXml(title)) : '', el('rect', { x: 0, y: 0, width, height, fill: PAPER }), ...body],
     ) +
     '\n'
   );

@@ -5,13 +5,11 @@
  */
 import type { CoefficientTable } from '../../engines/table.js';
 import type { UnitSystem } from '../pair-report.js';
+import { csvField } from '../format.js';
 import { quantityColumns, rowSpread } from './columns.js';
 import { provenanceLines, provenanceOf } from './provenance.js';
 
-/** A CSV field, quoted when it holds a comma, quote or line break (RFC 4180). */
-export function csvField(s: string): string {
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
+export { csvField };
 
 const num = (x: number | undefined): string => (x === undefined ? '' : String(x));
 
@@ -34,6 +32,10 @@ export function tableToCsv(table: CoefficientTable, options: { units: UnitSystem
       r.warnings.join('; '),
     ];
     lines.push(cells.map(csvField).join(','));
+  }
+  const blanks = cols.map(() => '');
+  for (const u of table.uncomputed ?? []) {
+    lines.push([u.a.name, u.b.name, ...blanks, '', 'NOT COMPUTED', '', u.a.source ?? '', u.b.source ?? '', `no route can handle the pair: ${u.reason}`].map(csvField).join(','));
   }
   return lines.join('\n') + '\n';
 }

@@ -11,7 +11,7 @@ export const TABLE_FORMATS = ['text', 'csv', 'json', 'markdown', 'latex'] as con
 export type TableFormat = (typeof TABLE_FORMATS)[number];
 
 /** Render `table` in `format`; `digits` applies to text, Markdown and LaTeX (CSV and JSON keep full precision). */
-export function renderTable(table: CoefficientTable, format: TableFormat, options: { units: UnitSystem; digits: number }): string {
+export function renderTable(table: CoefficientTable, format: TableFormat, options: { units: UnitSystem; digits: number; columns?: readonly string[] }): string {
   switch (format) {
     case 'text':
       return tableToText(table, options);

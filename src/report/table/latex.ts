@@ -5,8 +5,10 @@
  * a single route a double dagger (‡). The provenance and the warnings are LaTeX comments above the float.
  */
 import type { CoefficientTable } from '../../engines/table.js';
-import { collectWarnings, humanTable, quantityColumns, untrustedSummary, type HumanTableOptions } from './columns.js';
+import { LATEX_NAME } from '../latex-names.js';
+import { collectWarnings, humanTable, NOT_COMPUTED, untrustedSummary, type HumanTableOptions } from './columns.js';
 import { provenanceLines, provenanceOf } from './provenance.js';
+import { allExact, levelsSentence } from './levels.js';
 
 /** Characters outside ASCII that plain pdfLaTeX may not know, spelled as LaTeX (others pass through). */
 const UNICODE_TO_LATEX: Record<string, string> = {
@@ -51,33 +53,35 @@ export function latexNumber(text: string): string {
   const m = /^(-?)(\d+(?:\.\d+)?)(?:e([+-]?\d+))?$/.exec(text);
   if (!m) return latexEscape(text);
   const [, sign, mantissa, exponent] = m;
-  return `$${sign}${mantissa}${exponent === undefined ? '' : `\\times10^{${Number(exponent)}}`}$`;
+  return `$${sign}${mantissa}${exponent === undefined || Number(exponent) === 0 ? '' : `\\times10^{${Number(exponent)}}`}$`;
 }
 
-const MARK = { UNTRUSTED: '$^{\\dagger}$', unchecked: '$^{\\ddagger}$', ok: '' } as const;
+/** Marks after the pair label: dagger UNTRUSTED, double dagger single route, section sign model, pilcrow not computed. */
+const MARK: Record<string, string> = { UNTRUSTED: '$^{\\dagger}$', unchecked: '$^{\\ddagger}$', model: '$^{\\S}$', [NOT_COMPUTED]: '$^{\\P}$' };
 
 export function tableToLatex(table: CoefficientTable, options: HumanTableOptions): string {
   const p = provenanceOf(table, options.units);
-  const cols = quantityColumns(options.units);
-  const { rows, sources: list } = humanTable(table, options);
-  const withSources = list.sources.length > 0;
+  const { columns, rows, sources: list, statuses } = humanTable(table, options, 'latex');
   const out: string[] = [];
   out.push(...provenanceLines(p).map((l) => `% ${l}`));
   out.push(`% ${untrustedSummary(table)}`);
   for (const w of collectWarnings(table)) out.push(`% warning: ${w.text} — ${w.pairs.join(', ')}`);
   out.push('% requires \\usepackage{booktabs}');
 
-  const spec = `l${'r'.repeat(cols.length)}r${withSources ? 'c' : ''}`;
-  const names = ['Pair', ...cols.map((c) => `$${c.latexName}$`), 'Spread', ...(withSources ? ['Sources'] : [])];
-  const units = ['', ...cols.map((c) => `($${c.latexUnit}$)`), '(rel.)', ...(withSources ? [''] : [])];
+  // the status is shown as a mark after the pair label, so it gets no column of its own
+  const shown = columns.map((c, i) => ({ c, i })).filter(({ c }) => c.key !== 'status');
+  const spec = `l${shown.map(({ c }) => (c.key === 'sources' ? 'c' : 'r')).join('')}`;
+  const title = (key: string) => (key === 'spread' ? 'Spread' : key === 'sources' ? 'Sources' : key);
+  const names = ['Pair', ...shown.map(({ c }) => (c.quantity ? `$${c.quantity.latexName}$` : title(c.key)))];
+  const units = ['', ...shown.map(({ c }) => (c.quantity ? `($${c.quantity.latexUnit}$)` : c.key === 'spread' ? '(rel.)' : ''))];
   const row = (cells: string[]) => `    ${cells.join(' & ')} \\\\`;
   const unitWords = options.units === 'atomic' ? 'atomic units' : 'SI units (CODATA 2018)';
   out.push(
     '\\begin{table}',
     '  \\centering',
     '  \\small',
-    `  \\caption{Dispersion coefficients $C_6$, $C_8$ and dispersion-induced dipole coefficients $D_7$ in ${unitWords}` +
-      ` (A at the origin, B at $+R\\hat{z}$, $\\mu_{A,z} \\approx D_{7,A}/R^7$, $E \\approx -C_6/R^6 - C_8/R^8$),` +
+    `  \\caption{Dispersion coefficients $C_6$, $C_8$ and dispersion-induced dipole coefficients in ${unitWords}` +
+      ` (A at the origin, B at $+R\\hat{z}$, $\\mu_{a,z} \\approx ${LATEX_NAME['D7.a']}/R^7$, $${LATEX_NAME['D7.total']} = ${LATEX_NAME['D7.a']} + ${LATEX_NAME['D7.b']}$, $E \\approx -C_6/R^6 - C_8/R^8$),` +
       ` by the routes ${latexEscape(table.settings.routes.join(', '))}; spread: largest relative difference between the routes.}`,
     '  \\label{tab:dispole-coefficients}',
     `  \\begin{tabular}{${spec}}`,
@@ -86,17 +90,18 @@ export function tableToLatex(table: CoefficientTable, options: HumanTableOptions
     row(units),
     '    \\midrule',
   );
-  rows.forEach((cells, i) => {
-    const numbers = cells.slice(1, cols.length + 2); // the quantities and the spread
-    const refs = withSources ? [latexEscape(cells[cols.length + 2])] : [];
-    out.push(row([latexEscape(cells[0]) + MARK[table.rows[i].status], ...numbers.map(latexNumber), ...refs]));
+  rows.forEach((cells, r) => {
+    const body = shown.map(({ c, i }) => (c.key === 'sources' ? latexEscape(cells[i + 1]) : latexNumber(cells[i + 1])));
+    out.push(row([latexEscape(cells[0]) + (MARK[statuses[r]] ?? ''), ...body]));
   });
   out.push('    \\bottomrule', '  \\end{tabular}');
   const notes: string[] = list.sources.map((src, i) => `${latexEscape(`[${i + 1}]`)}~${latexEscape(src)}`);
-  if (table.rows.some((r) => r.status === 'UNTRUSTED')) {
-    notes.push(`${MARK.UNTRUSTED}\\,UNTRUSTED: a route did not converge or the routes disagree (see the warnings in the comments above the table).`);
-  }
-  if (table.rows.some((r) => r.status === 'unchecked')) notes.push(`${MARK.unchecked}\\,Only one route could run: no cross-check.`);
+  const has = (status: string) => statuses.includes(status);
+  if (has('UNTRUSTED')) notes.push(`${MARK.UNTRUSTED}\\,UNTRUSTED: a route did not converge or the routes disagree (see the warnings in the comments above the table).`);
+  if (has('unchecked')) notes.push(`${MARK.unchecked}\\,Only one route could run: no cross-check.`);
+  if (has('model')) notes.push(`${MARK.model}\\,$D_{7}$ rests on a model or an approximate input (see the warnings in the comments above the table).`);
+  if (!allExact(table)) notes.push(`Levels: ${latexEscape(levelsSentence(table))}.`);
+  if (has(NOT_COMPUTED)) notes.push(`${MARK[NOT_COMPUTED]}\\,Not computed: no route can handle the pair (reason in the comments above the table).`);
   if (notes.length) {
     out.push('  \\par\\smallskip', '  {\\footnotesize\\raggedright');
     out.push(...notes.map((n) => `  ${n}\\par`));

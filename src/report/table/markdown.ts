@@ -10,10 +10,11 @@ export function markdownEscape(s: string): string {
 
 export function tableToMarkdown(table: CoefficientTable, options: HumanTableOptions): string {
   const p = provenanceOf(table, options.units);
-  const { header, rows } = humanTable(table, options);
+  const { header, columns, rows } = humanTable(table, options, 'markdown');
+  const statusAt = columns.findIndex((c) => c.key === 'status') + 1; // 0 when no status column
   const e = markdownEscape;
   const lines: string[] = [`**${e(p.title)}**`, ''];
-  for (const [label, value] of [['units', p.units], ['geometry', p.geometry], ['routes', p.routes], ['tolerances', p.tolerances], ['spread', p.spread], ['status', p.status]]) {
+  for (const [label, value] of [['units', p.units], ['geometry', p.geometry], ['routes', p.routes], ['tolerances', p.tolerances], ['spread', p.spread], ['status', p.status], ['levels', p.levels]]) {
     lines.push(`- ${label}: ${e(value)}`);
   }
   lines.push('- species:');
@@ -23,11 +24,10 @@ export function tableToMarkdown(table: CoefficientTable, options: HumanTableOpti
     p.sources.forEach((src, i) => lines.push(`  - ${e(`[${i + 1}]`)} ${e(src)}`));
   }
   const line = (cells: string[]) => `| ${cells.join(' | ')} |`;
-  const align = header.map((_, i) => (i === 0 || i === header.length - 1 ? '---' : '---:'));
+  const align = header.map((_, i) => (i === 0 || columns[i - 1].key === 'status' ? '---' : '---:'));
   lines.push('', line(header.map(e)), line(align));
   for (const cells of rows) {
-    const status = cells[cells.length - 1];
-    lines.push(line([...cells.slice(0, -1).map(e), status === 'UNTRUSTED' ? '**UNTRUSTED**' : status]));
+    lines.push(line(cells.map((c, i) => (i === statusAt && /^(UNTRUSTED|NOT COMPUTED)$/.test(c) ? `**${c}**` : e(c)))));
   }
   const summary = untrustedSummary(table);
   lines.push('', summary.startsWith('UNTRUSTED') ? `**${summary}**` : summary);

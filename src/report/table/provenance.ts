@@ -8,6 +8,7 @@ import { describeSpecies } from '../../model/species.js';
 import { VERSION } from '../../version.js';
 import type { UnitSystem } from '../pair-report.js';
 import { oneLine, sourceList, STATUS_LEGEND, unitsSentence } from './columns.js';
+import { levelsSentence } from './levels.js';
 
 export interface Provenance {
   /** One line: version, what the table holds and how many pairs. */
@@ -22,6 +23,8 @@ export interface Provenance {
   /** Distinct sources, numbered from 1. */
   sources: string[];
   status: string;
+  /** Which columns are exact, first-principles, rescaled or model (see levels.ts). */
+  levels: string;
 }
 
 export const GEOMETRY =
@@ -49,6 +52,7 @@ export function provenanceOf(table: CoefficientTable, units: UnitSystem): Proven
     }),
     sources: list.sources,
     status: STATUS_LEGEND,
+    levels: levelsSentence(table),
   };
 }
 
@@ -62,6 +66,7 @@ export function provenanceLines(p: Provenance): string[] {
     `tolerances: ${p.tolerances}`,
     `spread: ${p.spread}`,
     `status: ${p.status}`,
+    `levels: ${p.levels}`,
     'species:',
     ...p.species.map((s) => `  ${s.name}: ${s.definition}${s.source !== undefined ? ` [${s.source}]` : ''}`),
     ...(p.sources.length ? ['sources:', ...p.sources.map((src, i) => `  [${i + 1}] ${src}`)] : []),

@@ -5,7 +5,7 @@ import { collectWarnings, humanTable, untrustedSummary, type HumanTableOptions }
 import { provenanceLines, provenanceOf } from './provenance.js';
 
 export function tableToText(table: CoefficientTable, options: HumanTableOptions): string {
-  const { header, rows } = humanTable(table, options);
+  const { header, rows } = humanTable(table, options, 'text');
   const lines = provenanceLines(provenanceOf(table, options.units));
   lines.push('', textTable(header, rows), '', untrustedSummary(table));
   for (const w of collectWarnings(table)) lines.push(`warning: ${w.text} — ${w.pairs.join(', ')}`);

@@ -1,0 +1,18 @@
+/**
+ * The one LaTeX notation of every LaTeX output (`derive --latex` and `table --latex`): D_7^{(a)} is the dipole
+ * coefficient of centre A (mu_{a,z} ≈ D_7^{(a)}/R^7), D_7 their sum.
+ */
+export const LATEX_NAME = {
+  C6: 'C_6',
+  C8: 'C_8',
+  C10: 'C_{10}',
+  'D7.a': 'D_{7}^{(a)}',
+  'D7.b': 'D_{7}^{(b)}',
+  'D7.total': 'D_{7}',
+  'D9.a': 'D_{9}^{(a)}',
+  'D9.b': 'D_{9}^{(b)}',
+  'D9.total': 'D_{9}',
+  'mu.a': '\\mu_{a,z}(R)',
+  'mu.b': '\\mu_{b,z}(R)',
+  'mu.total': '\\mu_{z}(R)',
+} as const;

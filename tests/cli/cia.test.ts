@@ -1,0 +1,101 @@
+/** `dispole cia`: the JSON contract, text/CSV/SVG outputs, bad input (exit 2, field named) and unconverged sums (exit 3). */
+import { describe, expect, test } from 'vitest';
+import { memoryIO } from '../../src/cli/io.js';
+import { runCli } from '../../src/cli/program.js';
+import { expectClose } from '../helpers/tolerance.js';
+
+async function run(argv: string[], files: Record<string, string> = {}) {
+  const io = memoryIO(files);
+  const code = await runCli(argv, io);
+  return { code, out: io.out, err: io.err, files: io.files };
+}
+
+// Quelon and Virid are the invented demo species; the masses, potential and dipole parameters are invented too.
+const BASE = ['cia', 'Quelon', 'Virid', '--masses', '1,1', '--potential', 'tt:A=60,b=1.75', '--dipole', 'exp:mu0=5e-3,R0=5,rho=1', '--fast'];
+
+describe('dispole cia', () => {
+  test('--json: the contract (units "atomic", temperatures with T, classical, quantum, wignerKirkwood, gamma1, alpha1)', async () => {
+    const { code, out, err } = await run([...BASE, '--temperature', '100', '--temperature', '200', '--json']);
+    expect(err).toBe('');
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    expect(j.units).toBe('atomic');
+    expect(j.unitsDetail.M0).toBe('e^2 a0^5');
+    expect(j.temperatures.map((t: { T: number }) => t.T)).toEqual([100, 200]);
+    for (const t of j.temperatures) {
+      for (const k of ['M0', 'M1', 'M2']) expect(Number.isFinite(t.classical[k])).toBe(true);
+      for (const k of ['M0', 'M1']) expect(Number.isFinite(t.quantum[k])).toBe(true);
+      expect(Number.isFinite(t.wignerKirkwood.M0)).toBe(true);
+      expect(t.gamma1).toBeGreaterThan(0);
+      expect(t.alpha1).toBeGreaterThan(0);
+      expectClose(t.M0, t.quantum.M0, 0);
+    }
+    expect(j.dipole.convention).toMatch(/A at the origin and B at \+R on z/);
+    // C6, C8, C10 and D7 are the pair's own from the reference route
+    expect(j.potential.basis).toMatch(/from dispole's reference route \(perturbation\) for Quelon–Virid/);
+    expect(j.dipole.basis).toMatch(/D7 from dispole's reference route/);
+    expect(j.trusted).toBe(true);
+  });
+  test('text report: units, both routes and their difference, the sign convention', async () => {
+    const { code, out } = await run([...BASE, '--temperature', '150']);
+    expect(code).toBe(0);
+    expect(out).toMatch(/Units: M0 e²·a0\^5, M1 e²·a0\^5·Eh\/ħ, M2 e²·a0\^5·\(Eh\/ħ\)²/);
+    expect(out).toMatch(/M0 quantum\s+M0 classical\s+M0 W–K\s+Δ cl\s+Δ W–K/);
+    expect(out).toMatch(/sign convention: mu\(R\) along \+z/);
+    expect(out).toMatch(/All numbers converged\./);
+  });
+  test('--spectrum with --csv and --svg: spectrum rows, a figure, the progress bar stays off without a terminal', async () => {
+    const { code, out, err, files } = await run([...BASE, '--temperature', '100', '--spectrum', '0:3000:100', '--csv', '--svg', 'cia.svg']);
+    expect(code).toBe(0);
+    const lines = out.trim().split('\n').filter((l) => !l.startsWith('#'));
+    expect(lines[0]).toBe('T_K,wavenumber_cm-1,absorption_cm-1_amagat-2,S_e2a0^5_per_Eh,free_free,bound_free,bound_bound');
+    expect(lines).toHaveLength(32);
+    expect(String(files['cia.svg'])).toMatch(/<svg[\s\S]*absorption spectrum[\s\S]*<\/svg>\s*$/);
+    expect(err).toBe('dispole: wrote the figure to cia.svg\n');
+  });
+  test('hfd:He-He and a tabulated dipole in debye and ångström are accepted', async () => {
+    const table = ['# R/Å  mu/D (invented)', ...Array.from({ length: 60 }, (_, i) => { const R = 1.5 + 0.1 * i; return `${R} ${(0.02 * Math.exp(-(R - 2.5) / 0.35)).toExponential(6)}`; })].join('\n');
+    const { code, out } = await run(['cia', 'He', 'Ar', '--potential', 'hfd:He-He', '--dipole', 'table:mu.txt,R=angstrom,mu=debye', '--temperature', '50', '--fast', '--json'], { 'mu.txt': table });
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    expect(j.potential.basis).toMatch(/Aziz, F\. R\. W\. McCourt, C\. C\. K\. Wong, Mol\. Phys\. 61, 1487 \(1987\)/);
+    expect(j.pair.massSource).toMatch(/CIAAW/);
+  });
+});
+
+describe('dispole cia: bad input → exit 2 naming the field, nothing on stdout', () => {
+  const bad = async (argv: string[], field: RegExp, files: Record<string, string> = {}) => {
+    const { code, out, err } = await run(argv, files);
+    expect(code).toBe(2);
+    expect(out).toBe('');
+    expect(err).toMatch(field);
+  };
+  test('negative or zero temperature', async () => {
+    await bad([...BASE, '--temperature=-5'], /--temperature: must be a finite temperature > 0 K, got -5/);
+    await bad([...BASE, '--temperature', '0'], /--temperature: must be a finite temperature > 0 K, got 0/);
+  });
+  test('a negative Born–Mayer repulsion', async () => {
+    await bad(['cia', 'Quelon', 'Virid', '--masses', '1,1', '--potential', 'tt:A=-4,b=1.9', '--dipole', 'exp:mu0=5e-3,R0=5,rho=1', '--temperature', '100'], /--potential\.A: the Born–Mayer repulsion must be > 0/);
+  });
+  test('a potential file with a non-increasing grid', async () => {
+    await bad([...BASE.slice(0, 5), '--potential', 'table:v.txt', '--dipole', 'exp:mu0=5e-3,R0=5,rho=1', '--temperature', '100'], /v\.txt:4: the R grid must increase strictly/, { 'v.txt': '4 1\n5 -0.001\n7 -1e-4\n6 -2e-5\n8 -1e-5\n' });
+  });
+  test('a dipole table that does not cover the range', async () => {
+    await bad([...BASE.slice(0, 7), '--dipole', 'table:mu.txt', '--temperature', '100'], /mu\.txt: the dipole table does not cover the range/, { 'mu.txt': '6 1e-3\n7 5e-4\n8 2e-4\n9 1e-4\n' });
+  });
+  test('frequencies outside the computed range', async () => {
+    await bad([...BASE, '--temperature', '100', '--spectrum', '0:90000:10'], /--spectrum: the range must satisfy 0 ≤ FROM < TO ≤ /);
+    await bad([...BASE, '--temperature', '100', '--spectrum', '-50:100:10'], /--spectrum/);
+  });
+  test('masses missing for species without a standard mass', async () => {
+    await bad(['cia', 'Quelon', 'Virid', '--potential', 'tt:A=40,b=1.9', '--dipole', 'exp:mu0=5e-3,R0=5,rho=1', '--temperature', '100'], /--masses: required: Quelon, Virid has no built-in standard mass/);
+  });
+});
+
+test('dispole cia: a partial-wave sum cut before convergence is flagged UNCONVERGED with exit 3', async () => {
+  const { code, out, err } = await run([...BASE, '--temperature', '100', '--max-partial-waves', '3']);
+  expect(code).toBe(3);
+  expect(out).toMatch(/UNCONVERGED/);
+  expect(out).toMatch(/UNTRUSTED/);
+  expect(err).toMatch(/partial-wave sum did not converge by l = 3/);
+});
