@@ -33,7 +33,7 @@ export { isotropicResponseCoefficients } from './engines/response/isotropic-kern
 export { tensorResponseCoefficients, type ResponseCoefficients } from './engines/response/tensor-kernel.js';
 export { localSpaceOf, isotropicResponseOf, tensorResponseOf, isSpherical } from './engines/capabilities.js';
 // real atoms: hydrogen from first principles, the sourced atom library, user response data
-export { hasLocalSpace, speciesNotes, speciesWarnings, responsePowerLimit } from './engines/capabilities.js';
+export { chargeWarning, pairSpeciesWarnings, hasLocalSpace, speciesNotes, speciesWarnings, responsePowerLimit } from './engines/capabilities.js';
 export { hydrogenic, DEFAULT_HYDROGENIC_BASIS, type HydrogenicSpecies } from './model/hydrogenic.js';
 export {
   parseResponseData, oscillatorSpectrum, responseDataFromText, responseDataSpeciesFile, isResponseDataFile,

@@ -70,4 +70,4 @@ export const SPECIES_FILE_HELP = 'YAML or JSON file of species (top-level "speci
 
 /** The species-token help text. */
 export const SPECIES_TOKEN_HELP =
-  'a built-in name (see `dispole species`), a name from --species FILE, or an inline spec such as drude:q=1.2,m=0.4,w=0.9, drude:q=1,m=1,wx=0.8,wy=0.8,wz=1.1 or fit:alpha=1.38,C6=1.46,C8=14.1';
+  'a built-in name (see `dispole species`), a name from --species FILE, or an inline spec such as drude:q=1.2,m=0.4,w=0.9, drude:q=1,m=1,wx=0.8,wy=0.8,wz=1.1, fit:alpha=1.38,C6=1.46,C8=14.1 or tdhf:Ar (time-dependent Hartree–Fock closed-shell atom or ion, e.g. tdhf:Z=11,charge=1)';

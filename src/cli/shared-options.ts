@@ -54,7 +54,7 @@ export const SHARED_OPTIONS = {
   },
   units: {
     flags: '--units <system>',
-    description: 'atomic, or si to add SI values (CODATA 2018): C_n in J·m^n, D7 in C·m^8 and debye·Å^7, dipoles in debye, energies in --energy-unit',
+    description: 'atomic, or si to add SI values (CODATA 2018): C_n in J·m^n, D7 in C·m^8 and debye·Å^7, dipoles in debye; on commands that also have --energy-unit, energies in that unit',
     default: 'atomic',
     parse: oneOf(['atomic', 'si'] as const),
   },
@@ -141,6 +141,14 @@ export function addSharedOptions(cmd: Command, names: readonly SharedOptionName[
         action.setOptionValueWithSource(to, value, 'cli');
       });
     }
+  }
+  if (names.includes('energyUnit') && names.includes('units')) {
+    // --energy-unit chooses the unit of the SI energies: without --units si it would change nothing, silently
+    cmd.hook('preAction', (_, action) => {
+      if (action.getOptionValueSource('energyUnit') === 'cli' && action.getOptionValue('units') !== 'si') {
+        throw new InputError('--energy-unit', 'chooses the unit of the SI energies; add --units si (the atomic output is in hartree)');
+      }
+    });
   }
   return cmd;
 }

@@ -48,8 +48,11 @@ export interface SpeciesAccuracy {
 export interface PairAccuracy {
   /** Level per species. */
   level: { a: AccuracyLevel; b: AccuracyLevel };
-  /** Level per quantity for the pair (the worse of the two species). */
-  quantities: { dispersion: AccuracyLevel; D7: AccuracyLevel };
+  /**
+   * Level per quantity for the pair (the worse of the two species). D9 (present when a route gave D9) rests on
+   * the same response and hyperpolarisability as D7, so it has D7's level.
+   */
+  quantities: { dispersion: AccuracyLevel; D7: AccuracyLevel; D9?: AccuracyLevel };
   /** One sentence: what the pair's numbers rest on. */
   statement: string;
   /** Estimated physical uncertainty (absolute, e·a0^8) where a recommended atom is involved. */
@@ -146,10 +149,11 @@ function responseD7(a: Species, b: Species, options: RouteOptions): D7Triple | u
   return r.converged ? r.D7 : undefined;
 }
 
-/** The accuracy of a pair whose reference D7 is `D7`. */
-export function pairAccuracy(a: Species, b: Species, D7: D7Triple, options: RouteOptions = {}): PairAccuracy {
+/** The accuracy of a pair whose reference D7 is `D7` (`withD9`: a route gave D9, listed with D7's level). */
+export function pairAccuracy(a: Species, b: Species, D7: D7Triple, options: RouteOptions = {}, withD9 = false): PairAccuracy {
   const sa = speciesAccuracy(a), sb = speciesAccuracy(b);
-  const quantities = { dispersion: worstLevel(sa.quantities.dispersion, sb.quantities.dispersion), D7: worstLevel(sa.quantities.D7, sb.quantities.D7) };
+  const levelD7 = worstLevel(sa.quantities.D7, sb.quantities.D7);
+  const quantities = { dispersion: worstLevel(sa.quantities.dispersion, sb.quantities.dispersion), D7: levelD7, ...(withD9 ? { D9: levelD7 } : {}) };
   const warnings = [...new Set([sa.warning, sb.warning].filter((w): w is string => w !== undefined))];
   const altA = alternatives(a), altB = alternatives(b);
   let uncertainty: PairAccuracy['uncertainty'];

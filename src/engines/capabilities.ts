@@ -120,6 +120,26 @@ export function speciesNotes(s: Species): string[] {
   }
 }
 
+/**
+ * The warning a pair with a charged species carries: dispole gives only the dispersion terms (C_n) and the
+ * dispersion-induced dipoles (D7, D9), not the charge-induced (induction) terms of an ion A with charge q_A,
+ * E ∋ −alpha_B q_A²/(2R^4) and mu_B ∋ alpha_B q_A/R^2 (classical induction, common practice; e.g. Stone, The
+ * Theory of Intermolecular Forces, 2nd ed. 2013), which dominate at long range. Undefined for neutral species.
+ */
+export function chargeWarning(s: Species): string | undefined {
+  if (s.kind !== 'tdhf' || s.charge === 0) return undefined;
+  return (
+    `${s.name} is an ion (charge ${s.charge > 0 ? '+' : ''}${s.charge}): only the dispersion (C_n) and dispersion-induced (D7) parts are given; ` +
+    `the charge-induced (induction) terms, energy −alpha_B q_A²/(2R^4) and induced dipole alpha_B q_A/R^2 on the partner, dominate at long range and are NOT included`
+  );
+}
+
+/** The species warnings of a pair (approximate inputs, charged species), each once: `pair`, `curve` and `density` print them. */
+export function pairSpeciesWarnings(a: Species, b: Species): string[] {
+  const all = [...speciesWarnings(a), ...speciesWarnings(b), chargeWarning(a), chargeWarning(b)];
+  return [...new Set(all.filter((w): w is string => w !== undefined))];
+}
+
 /** Warnings every pair with this species carries (approximate inputs). */
 export function speciesWarnings(s: Species): string[] {
   const approximate =

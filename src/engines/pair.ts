@@ -6,7 +6,7 @@ import type { Species } from '../model/species.js';
 import { ConvergenceError, InputError } from '../model/errors.js';
 import type { D7Triple, Route, RouteOptions, RouteResult } from './route.js';
 import { defaultRoutes, routeByName, routeNames } from './routes.js';
-import { speciesWarnings } from './capabilities.js';
+import { pairSpeciesWarnings } from './capabilities.js';
 import { pairAccuracy, type PairAccuracy } from './accuracy.js';
 
 export interface PairOptions extends RouteOptions {
@@ -155,17 +155,17 @@ export function computePair(a: Species, b: Species, options: PairOptions = {}): 
   warnings.push(...infinite);
   if (spread.max > agreement) warnings.push(`routes disagree: largest relative spread ${spread.max.toExponential(2)} > ${agreement.toExponential(0)}`);
   if (results.length < 2) warnings.push('only one route could run: no cross-check');
-  warnings.push(...new Set([...speciesWarnings(a), ...speciesWarnings(b)]));
+  warnings.push(...pairSpeciesWarnings(a, b));
   if (options.routes) for (const s of skipped) warnings.push(`route ${s.name} skipped: ${s.reason}`);
   const ref = results[0];
-  const accuracy = pairAccuracy(a, b, ref.D7, options);
+  const d9 = results.find((r) => r.D9 !== undefined)?.D9;
+  const accuracy = pairAccuracy(a, b, ref.D7, options, d9 !== undefined);
   warnings.push(...accuracy.warnings);
   if (ref.permanent) {
     warnings.push(
       'anisotropic species carry permanent quadrupoles and higher moments: besides D7 and D9 there are first-order induced dipoles ∝ R^-4, R^-6, R^-8 (D4, D6, D8) and electrostatic energies ∝ R^-5, R^-7 (E5, E7); C_n, D7 and D9 here include the induction parts',
     );
   }
-  const d9 = results.find((r) => r.D9 !== undefined)?.D9;
   return {
     a,
     b,

@@ -133,6 +133,6 @@ export function resolveSpecies(token: string, fromFile?: ReadonlyMap<string, Spe
   const fileNames = [...(fromFile?.keys() ?? [])].filter((n) => !names.includes(n));
   throw new InputError(
     token.trim() === '' ? 'species' : token,
-    `${token.trim() === '' ? 'is empty' : 'is not a known species'}; use a built-in name (${names.join(', ')}), a name from --species FILE${fileNames.length ? ` (${fileNames.join(', ')})` : ''}, or an inline spec like drude:q=1.2,m=0.4,w=0.9`,
+    `${token.trim() === '' ? 'is empty' : 'is not a known species'}; use a built-in name (${names.join(', ')}), a name from --species FILE${fileNames.length ? ` (${fileNames.join(', ')})` : ''}, or an inline spec like drude:q=1.2,m=0.4,w=0.9 or tdhf:Ar (closed-shell atom or ion by time-dependent Hartree–Fock, e.g. tdhf:Z=11,charge=1)`,
   );
 }

@@ -24,7 +24,23 @@
  */
 import { InputError, describeValue } from './errors.js';
 import { HARTREE_IN_EV } from './units.js';
-import { requirePositive } from './validate.js';
+
+/**
+ * Allowed ranges of Drude–Lorentz parameters, hartree (derived here): wp in [1e-6, 1e6], w0 and gamma 0 or in
+ * (0, 1e6]. Then wp² ≤ 1e12 and w0² + u² + gamma·u stay far inside the double range (max ≈ 1.8e308), so eps(iu) − 1
+ * is finite wherever the denominator is non-zero, and the quadrature scale max(wp, w0)/√2 stays within twelve
+ * decades of atomic frequencies; wp ≥ 1e-6 keeps eps − 1 ≥ 1e-12/(w0² + u² + gamma u) away from underflow.
+ */
+export const LORENTZ_RANGE = { wpMin: 1e-6, max: 1e6 } as const;
+
+/** A plasma (strength) frequency within {@link LORENTZ_RANGE}, hartree. */
+function plasmaFrequency(field: string, value: unknown): number {
+  const x = typeof value === 'string' && value.trim() !== '' ? Number(value) : value;
+  if (typeof x !== 'number' || !(x >= LORENTZ_RANGE.wpMin) || !(x <= LORENTZ_RANGE.max)) {
+    throw new InputError(field, `must be a plasma frequency from ${LORENTZ_RANGE.wpMin} to ${LORENTZ_RANGE.max} hartree (keeps eps(iu) finite in double precision), got ${describeValue(value)}`);
+  }
+  return x;
+}
 
 /** One Drude–Lorentz oscillator: eps(iu) − 1 ∋ wp²/(w0² + u² + gamma u); w0 = 0 is a Drude (free-electron) term. */
 export interface LorentzTerm {
@@ -45,7 +61,7 @@ export type SurfaceSpec =
 
 /** The spec syntax in one line, for help texts and error messages. */
 export const SURFACE_SPEC_HELP =
-  'conductor | eps=VALUE | drude:wp=…,gamma=… | drude-lorentz:wp=…,w0=…,gamma=…;wp=…,… | table:FILE (columns "u [Eh], eps"); frequencies in hartree';
+  'conductor | eps=VALUE | drude:wp=…,gamma=… | drude-lorentz:wp=…,w0=…,gamma=…;wp=…,… | table:FILE (columns "u [Eh], eps"); frequencies in hartree (wp 1e-6…1e6, w0 and gamma 0…1e6)';
 
 const TABLE_MIN_ROWS = 4;
 
@@ -97,15 +113,17 @@ function lorentzTerm(body: string, field: string, allowed: readonly string[]): L
     if (key in fields) throw new InputError(`${field}.${key}`, 'is given twice');
     fields[key] = part.slice(k + 1).trim();
   }
-  const wp = requirePositive(`${field}.wp`, fields.wp);
+  if (fields.wp === undefined) throw new InputError(`${field}.wp`, `is required: a plasma frequency from ${LORENTZ_RANGE.wpMin} to ${LORENTZ_RANGE.max} Eh`);
+  const wp = plasmaFrequency(`${field}.wp`, fields.wp);
   const gamma = nonNegative(`${field}.gamma`, fields.gamma ?? '0');
   const w0 = allowed.includes('w0') ? nonNegative(`${field}.w0`, fields.w0 ?? '0') : 0;
   return { wp, w0, gamma };
 }
 
+/** A resonance or damping frequency: 0 or up to {@link LORENTZ_RANGE}.max hartree. */
 function nonNegative(field: string, value: string): number {
   const x = value.trim() === '' ? NaN : Number(value);
-  if (!(x >= 0) || !Number.isFinite(x)) throw new InputError(field, `must be a finite number ≥ 0, got ${describeValue(value)}`);
+  if (!(x >= 0) || !(x <= LORENTZ_RANGE.max)) throw new InputError(field, `must be a number from 0 to ${LORENTZ_RANGE.max} (hartree), got ${describeValue(value)}`);
   return x;
 }
 
@@ -163,19 +181,19 @@ export function parseEpsTable(text: string, fileName: string): SurfaceSpec {
   return { kind: 'table', u, eps, name, source: settings.source ?? `user data from ${fileName}` };
 }
 
-/** A one-line description of a surface (atomic units). */
-export function describeSurface(s: SurfaceSpec): string {
+/** A one-line description of a surface (atomic units); `num` formats each number (reports pass their --digits formatter). */
+export function describeSurface(s: SurfaceSpec, num: (x: number) => string = String): string {
   switch (s.kind) {
     case 'conductor':
       return 'perfect conductor (image charges)';
     case 'constant':
-      return `dielectric, constant eps = ${s.eps} (image factor (eps−1)/(eps+1) = ${(s.eps - 1) / (s.eps + 1)})`;
+      return `dielectric, constant eps = ${num(s.eps)} (image factor (eps−1)/(eps+1) = ${num((s.eps - 1) / (s.eps + 1))})`;
     case 'drude-lorentz':
       return s.form === 'drude'
-        ? `Drude metal, wp = ${s.terms[0].wp} Eh, gamma = ${s.terms[0].gamma} Eh`
-        : `Drude–Lorentz dielectric, ${s.terms.length} term(s): ${s.terms.map((t) => `wp=${t.wp},w0=${t.w0},gamma=${t.gamma}`).join('; ')} (Eh)`;
+        ? `Drude metal, wp = ${num(s.terms[0].wp)} Eh, gamma = ${num(s.terms[0].gamma)} Eh`
+        : `Drude–Lorentz dielectric, ${s.terms.length} term(s): ${s.terms.map((t) => `wp=${num(t.wp)},w0=${num(t.w0)},gamma=${num(t.gamma)}`).join('; ')} (Eh)`;
     case 'table':
-      return `table of eps(iu) "${s.name}": ${s.u.length} points u = ${s.u[0]}…${s.u[s.u.length - 1]} Eh`;
+      return `table of eps(iu) "${s.name}": ${s.u.length} points u = ${num(s.u[0])}…${num(s.u[s.u.length - 1])} Eh`;
   }
 }
 
@@ -193,7 +211,7 @@ export function validateSurface(s: SurfaceSpec, field = 'surface'): SurfaceSpec 
     case 'drude-lorentz':
       if (!Array.isArray(s.terms) || s.terms.length === 0) throw new InputError(`${field}.terms`, 'must list at least one term {wp, w0, gamma}');
       s.terms.forEach((t, j) => {
-        requirePositive(`${field}.terms[${j}].wp`, t.wp);
+        plasmaFrequency(`${field}.terms[${j}].wp`, t.wp);
         nonNegative(`${field}.terms[${j}].w0`, String(t.w0));
         nonNegative(`${field}.terms[${j}].gamma`, String(t.gamma));
       });

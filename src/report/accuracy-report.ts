@@ -25,10 +25,15 @@ export function crossCheckLine(p: PairResult): string {
   return `Only the ${p.routes[0].name} route could run: no cross-check.`;
 }
 
+/** The "Model accuracy" line: levels per species and the statement (pair, curve and density reports). */
+export function accuracyStatementLine(a: PairAccuracy, nameA: string, nameB: string): string {
+  return `Model accuracy (physical; levels ${nameA}: ${a.level.a}, ${nameB}: ${a.level.b}): ${a.statement}`;
+}
+
 /** "Model accuracy" lines of the text report: the statement and the D7 uncertainty with the models it spans (the rescaling factors are in the route notes). */
 export function accuracyLines(p: PairResult, digits = 3): string[] {
   const a = p.accuracy;
-  const lines = [`Model accuracy (physical; levels ${p.a.name}: ${a.level.a}, ${p.b.name}: ${a.level.b}): ${a.statement}`];
+  const lines = [accuracyStatementLine(a, p.a.name, p.b.name)];
   if (a.uncertainty) {
     const u = a.uncertainty.D7, d = p.coefficients.D7;
     const pm = (x: number, e: number) => `${sig(x, digits)} ± ${sig(e, 2)}`;

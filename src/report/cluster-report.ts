@@ -1,5 +1,5 @@
 /** Reports of a cluster computation: the JSON object of the CLI contract, CSV rows and the human table (pure). */
-import type { ClusterResult } from '../engines/cluster/cluster.js';
+import { DIPOLE_TOLERANCE, type ClusterResult } from '../engines/cluster/cluster.js';
 import type { Vec3 } from '../model/types.js';
 import { dipoleAuToDebye, energyFromHartree, energyUnitText, type EnergyUnit } from '../model/units.js';
 import { VERSION } from '../version.js';
@@ -26,6 +26,9 @@ export const CENTRE_FIELDS = {
   C6Isolated: 'like-pair coefficient of the centre alone (Eh a0^6)',
 } as const;
 
+/** What a dipole's error estimate covers, in the same words in the text, CSV and JSON. */
+const DIPOLE_ERROR_TEXT = 'estimated error of the dipole (e a0): rounding of the normal-mode covariance and the far-pair approximation (leading-order bounds)';
+
 /** How the cluster report prints: digits, and energies/dipoles in SI beside atomic units when asked. */
 export interface ClusterReportOptions {
   digits?: number;
@@ -45,6 +48,8 @@ export function clusterToJson(r: ClusterResult, source: ClusterSource, options: 
       : {}),
     dipole: r.dipole,
     dipoleDebye: debye(r.dipole),
+    dipoleError: r.dipoleError,
+    dipoleFlagged: r.dipoleFlagged,
     alpha: r.alpha,
     centres: r.centres.map((c) => ({
       label: c.label,
@@ -52,6 +57,8 @@ export function clusterToJson(r: ClusterResult, source: ClusterSource, options: 
       position: c.position,
       dipole: c.dipole,
       dipoleDebye: debye(c.dipole),
+      dipoleError: c.dipoleError,
+      dipoleFlagged: c.dipoleFlagged,
       alphaInCluster: c.alpha,
       alphaIsolated: c.alphaFree,
       C6InCluster: c.C6,
@@ -67,6 +74,8 @@ export function clusterToJson(r: ClusterResult, source: ClusterSource, options: 
       alpha: 'screened static polarisability of the whole cluster (a0^3)',
       ...CENTRE_FIELDS,
       dipole: 'dispersion-induced dipole by force balance with the dipole–quadrupole interaction',
+      dipoleError: DIPOLE_ERROR_TEXT,
+      dipoleFlagged: `true when dipoleError exceeds ${DIPOLE_TOLERANCE} of the larger of |mu| and the size of the centre's pair terms |D7|/R^7: the dipole is untrusted`,
     },
     dispole: { version: VERSION },
   };
@@ -84,12 +93,13 @@ export function clusterToCsv(r: ClusterResult, source: ClusterSource, options: C
     `# energy.manyBody: ${e(r.energy.manyBody)}`,
     `# energy.pairwise: ${e(r.energy.pairwise)}`,
     `# energy.nonAdditive: ${e(r.energy.nonAdditive)}`,
-    `# dipole (e a0): ${r.dipole.join(' ')}; |mu| = ${dipoleAuToDebye(length(r.dipole))} D`,
+    `# dipole (e a0): ${r.dipole.join(' ')}; |mu| = ${dipoleAuToDebye(length(r.dipole))} D; estimated error ${r.dipoleError} e a0${r.dipoleFlagged ? ' (FLAGGED: untrusted)' : ''}`,
+    `# mu_error_ea0: ${DIPOLE_ERROR_TEXT}; mu_flagged: true when it exceeds ${DIPOLE_TOLERANCE} of the larger of |mu| and the size of the centre's pair terms`,
     `# alpha of the cluster (a0^3): ${r.alpha}`,
     `# converged: ${r.converged}`,
-    'label,species,x_bohr,y_bohr,z_bohr,mu_x_ea0,mu_y_ea0,mu_z_ea0,mu_debye,alpha_in_cluster_a0^3,alpha_isolated_a0^3,C6_in_cluster_Eh_a0^6,C6_isolated_Eh_a0^6',
+    'label,species,x_bohr,y_bohr,z_bohr,mu_x_ea0,mu_y_ea0,mu_z_ea0,mu_debye,alpha_in_cluster_a0^3,alpha_isolated_a0^3,C6_in_cluster_Eh_a0^6,C6_isolated_Eh_a0^6,mu_error_ea0,mu_flagged',
     ...r.centres.map((c) =>
-      [csvField(c.label), csvField(c.species), ...[...c.position, ...c.dipole, dipoleAuToDebye(length(c.dipole)), c.alpha, c.alphaFree, c.C6, c.C6Free].map(String)].join(','),
+      [csvField(c.label), csvField(c.species), ...[...c.position, ...c.dipole, dipoleAuToDebye(length(c.dipole)), c.alpha, c.alphaFree, c.C6, c.C6Free, c.dipoleError, c.dipoleFlagged].map(String)].join(','),
     ),
   ];
   return rows.join('\n') + '\n';
@@ -109,18 +119,24 @@ export function clusterToText(r: ClusterResult, source: ClusterSource, options: 
   lines.push(`dispersion energy, all orders (many-body)  ${f(e.manyBody)} Eh${si(e.manyBody)}`);
   lines.push(`sum over pairs (pairwise additive)         ${f(e.pairwise)} Eh${si(e.pairwise)}`);
   lines.push(`non-additive part                          ${f(e.nonAdditive)} Eh${si(e.nonAdditive)}`);
-  lines.push(`total dispersion dipole                    [${r.dipole.map(f).join(', ')}] e a0  |mu| = ${f(dipoleAuToDebye(length(r.dipole)))} D`);
+  lines.push(
+    `total dispersion dipole                    [${r.dipole.map(f).join(', ')}] e a0  |mu| = ${f(dipoleAuToDebye(length(r.dipole)))} D  ± ${sigDigits(r.dipoleError, 2, 'exponent')} e a0${r.dipoleFlagged ? '  FLAGGED' : ''}`,
+  );
   lines.push(`screened polarisability of the cluster     ${f(r.alpha)} a0^3`);
   lines.push('');
-  const header = ['label', 'x (a0)', 'y (a0)', 'z (a0)', 'mu_x (e a0)', 'mu_y (e a0)', 'mu_z (e a0)', '|mu| (D)', 'alpha in cluster', 'alpha isolated', 'C6 in cluster', 'C6 isolated'];
+  const header = ['label', 'x (a0)', 'y (a0)', 'z (a0)', 'mu_x (e a0)', 'mu_y (e a0)', 'mu_z (e a0)', '|mu| (D)', 'mu error (e a0)', 'alpha in cluster', 'alpha isolated', 'C6 in cluster', 'C6 isolated'];
   const rows = formatColumns(
-    r.centres.map((c) => [c.label, ...c.position, ...c.dipole, dipoleAuToDebye(length(c.dipole)), c.alpha, c.alphaFree, c.C6, c.C6Free]),
+    r.centres.map((c) => [c.label, ...c.position, ...c.dipole, dipoleAuToDebye(length(c.dipole)), c.dipoleError, c.alpha, c.alphaFree, c.C6, c.C6Free]),
     digits,
   );
+  r.centres.forEach((c, i) => {
+    if (c.dipoleFlagged) rows[i][0] += ' FLAGGED';
+  });
   lines.push(textTable(header, rows));
   lines.push('');
   lines.push('alpha in cluster: screened static polarisability (a0^3), the centre\'s dipole per uniform field on the whole cluster; isolated: the centre alone;');
   lines.push('C6 in cluster: screened like-pair coefficient (3/π)∫alpha(iu)² du (Eh a0^6); mu: dispersion-induced dipole by force balance.');
+  lines.push(`mu error: ${DIPOLE_ERROR_TEXT}; FLAGGED: above ${DIPOLE_TOLERANCE} of the larger of |mu| and the size of the centre's pair terms (untrusted).`);
   for (const note of r.notes) lines.push(`note: ${note}`);
   if (!r.quadrature.converged) lines.push(`UNCONVERGED: the C6 quadrature reached only ${sigDigits(r.quadrature.largestRelativeError, 2, 'exponent')} relative error`);
   return lines.join('\n') + '\n';

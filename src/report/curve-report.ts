@@ -6,7 +6,9 @@
 import type { ExactCurve } from '../engines/exact/curve.js';
 import type { ExactPoint } from '../engines/exact/exact-solver.js';
 import type { D7Triple } from '../engines/route.js';
-import { isSpherical } from '../engines/capabilities.js';
+import { isSpherical, pairSpeciesWarnings } from '../engines/capabilities.js';
+import { pairAccuracy, type PairAccuracy } from '../engines/accuracy.js';
+import { accuracyStatementLine, accuracyToJson } from './accuracy-report.js';
 import { orderCompleteness, type OrderCompleteness } from '../engines/exact/series-terms.js';
 import { describeSpecies, type Species } from '../model/species.js';
 import { bohrToAngstrom, dipoleAuToDebye, energyFromHartree, energyUnitText, type EnergyUnit } from '../model/units.js';
@@ -57,6 +59,8 @@ export interface CurveData {
   rows: CurveRow[];
   /** True when every row is trusted. */
   trusted: boolean;
+  /** What the numbers rest on (as in `pair`): levels, statement and MODEL warnings of the fitted QDOs. */
+  accuracy: PairAccuracy;
   warnings: string[];
 }
 
@@ -94,6 +98,7 @@ export function curveData(
     return { ...p, asymptotic, seriesResidual, inSeries };
   });
   const completeness = orderCompleteness(curve.order, isSpherical(a) && isSpherical(b));
+  const accuracy = pairAccuracy(a, b, coefficients.D7);
   const warnings: string[] = [];
   const untrusted = rows.filter((r) => !r.trusted);
   if (untrusted.length > 0) {
@@ -114,7 +119,9 @@ export function curveData(
     warnings.push(
       `${outside.length} trusted point(s) lie more than ${SERIES_RANGE * 100}% from the asymptotic series (R too small for it: |÷ser−1| > ${SERIES_RANGE} in the table, "inSeries": false in --json; not joined in the figure's ratio panels)`,
     );
-  return { a, b, order: curve.order, tolerance: options.tolerance, lengthUnit: options.lengthUnit, coefficients, completeness, rows, trusted: untrusted.length === 0, warnings };
+  // the species warnings `pair` prints (MODEL: D7 of a fitted QDO rests on the model's B)
+  warnings.push(...pairSpeciesWarnings(a, b), ...accuracy.warnings);
+  return { a, b, order: curve.order, tolerance: options.tolerance, lengthUnit: options.lengthUnit, coefficients, completeness, rows, trusted: untrusted.length === 0, accuracy, warnings };
 }
 
 export const toUnit = (R: number, unit: LengthUnit): number => (unit === 'bohr' ? R : bohrToAngstrom(R));
@@ -126,8 +133,8 @@ export interface CurveUnits {
   energyUnit?: EnergyUnit;
 }
 
-/** Dipole and energy in the report's units, with their printed and CSV unit names. */
-function reportUnits(o: CurveUnits) {
+/** Dipole and energy in the report's units, with their printed and CSV unit names (also used by `dispole density`). */
+export function reportUnits(o: CurveUnits) {
   if (o.units !== 'si') return { si: false, mu: (x: number) => x, e: (x: number) => x, muText: 'e a0', eText: 'Eh', muCsv: 'ea0', eCsv: 'hartree' };
   const eu = o.energyUnit ?? 'cm-1';
   return { si: true, mu: dipoleAuToDebye, e: (x: number) => energyFromHartree(x, eu), muText: 'D', eText: energyUnitText(eu), muCsv: 'debye', eCsv: eu.replace('/', '_per_') };
@@ -189,6 +196,7 @@ export function curveToText(d: CurveData, options: (CurveUnits & { digits?: numb
   if (d.coefficients.D4 || d.coefficients.E5 !== undefined) lines.push('(series columns include the first-order terms D4, D6, D8 and E5, E7)');
   if (muMark || eMark) lines.push(`* not right to the order of the printed series at multipole order ${d.order}: see the warnings`);
   lines.push(d.trusted ? 'All points converged and trusted.' : 'UNTRUSTED points: see the warnings below.');
+  lines.push(accuracyStatementLine(d.accuracy, d.a.name, d.b.name));
   for (const w of d.warnings) lines.push(w.startsWith('  ') ? w : `warning: ${w}`);
   return lines.join('\n') + '\n';
 }
@@ -257,6 +265,7 @@ export function curveToJson(d: CurveData, options: CurveUnits = {}): Record<stri
       record: r.record,
     })),
     trusted: d.trusted,
+    accuracy: accuracyToJson(d.accuracy),
     warnings: d.warnings,
     dispole: { version: VERSION },
   };

@@ -1,8 +1,12 @@
 /**
- * The one LaTeX notation of every LaTeX output (`derive --latex` and `table --latex`): D_7^{(a)} is the dipole
- * coefficient of centre A (mu_{a,z} ≈ D_7^{(a)}/R^7), D_7 their sum.
+ * The one LaTeX notation of every LaTeX output (`derive --latex`, `derive --surface --latex`, `table --latex` and
+ * `table --surface --latex`): D_7^{(a)} is the dipole coefficient of centre A (mu_{a,z} ≈ D_7^{(a)}/R^7), D_7 their
+ * sum; in front of a surface E(Z) ≈ −C_3/Z^3 − C_5/Z^5 and mu_z ≈ D_{4}/Z^4 (z from the surface to the atom).
  */
 export const LATEX_NAME = {
+  C3: 'C_3',
+  C5: 'C_5',
+  D4: 'D_{4}',
   C6: 'C_6',
   C8: 'C_8',
   C10: 'C_{10}',

@@ -57,6 +57,15 @@ export function pairToJson(p: PairResult, units: UnitSystem = 'atomic'): Record<
   };
 }
 
+/** Why a pair has no D9 (undefined when a route gave it): the response route has no D9 formula yet. */
+export function missingD9Note(p: PairResult): string | undefined {
+  if (p.coefficients.D9) return undefined;
+  const names = p.routes.map((r) => r.name);
+  return names.every((n) => n === 'response')
+    ? 'D9: not available from the response route (no response formula yet)'
+    : `D9: not given by the route(s) that ran (${names.join(', ')})`;
+}
+
 /** The warning computePair adds for a single route; the report's closing line says it already. */
 const SINGLE_ROUTE_WARNING = 'only one route could run: no cross-check';
 
@@ -93,6 +102,8 @@ export function pairToText(p: PairResult, options: { digits?: number; units?: Un
   lines.push('');
   const d9 = p.coefficients.D9 ? ' + D9.a/R^9' : '';
   lines.push(`E(R) ≈ −C6/R^6 − C8/R^8 − C10/R^10;  mu_A,z(R) ≈ D7.a/R^7${d9},  mu_B,z(R) ≈ D7.b/R^7${d9 ? ' + D9.b/R^9' : ''}  (reference: ${p.routes[0].name})`);
+  const noD9 = missingD9Note(p);
+  if (noD9) lines.push(noD9);
   const perm = p.routes[0].permanent;
   if (perm) {
     const pair = (name: string, t: { a: number; b: number } | undefined, unit: string) => (t ? `,  ${name}.a = ${f(t.a)}, ${name}.b = ${f(t.b)} ${unit}` : '');
@@ -137,17 +148,21 @@ export function pairToCsv(p: PairResult, units: UnitSystem = 'atomic'): string {
     `# spread (largest relative difference between the routes): ${p.routes.length > 1 ? p.spread.max : 'none (one route)'}; trusted: ${p.trusted}`,
     `# accuracy (physical; levels A ${p.accuracy.level.a}, B ${p.accuracy.level.b}): ${oneLine(p.accuracy.statement)}` +
       (p.accuracy.uncertainty ? ` D7 uncertainty: a ${p.accuracy.uncertainty.D7.a}, b ${p.accuracy.uncertainty.D7.b}, total ${p.accuracy.uncertainty.D7.total}` : ''),
+    ...(missingD9Note(p) ? [`# ${missingD9Note(p)}`] : []),
     ...p.warnings.map((w) => `# warning: ${oneLine(w)}`),
   ];
+  // D9 columns when some route gives it (as in the text table); empty cells for routes without it
+  const withD9 = p.routes.some((r) => r.D9);
+  const d9Head = withD9 ? ['D9.a (e a0^10)', 'D9.b (e a0^10)', 'D9.total (e a0^10)'] : [];
   const siHead = units === 'si' ? ['C6 (J m^6)', 'C8 (J m^8)', 'C10 (J m^10)', 'D7.a (C m^8)', 'D7.b (C m^8)', 'D7.total (C m^8)', 'D7.a (D Å^7)', 'D7.b (D Å^7)', 'D7.total (D Å^7)'] : [];
-  lines.push(['route', 'status', 'C6 (Eh a0^6)', 'C8 (Eh a0^8)', 'C10 (Eh a0^10)', 'D7.a (e a0^8)', 'D7.b (e a0^8)', 'D7.total (e a0^8)', ...siHead, 'notes'].map(csvField).join(','));
+  lines.push(['route', 'status', 'C6 (Eh a0^6)', 'C8 (Eh a0^8)', 'C10 (Eh a0^10)', 'D7.a (e a0^8)', 'D7.b (e a0^8)', 'D7.total (e a0^8)', ...d9Head, ...siHead, 'notes'].map(csvField).join(','));
   const num = (x: number | undefined) => (x === undefined ? '' : String(x));
   for (const r of p.routes) {
     const si = units === 'si' ? coefficientsToSI(r) : undefined;
     const siCells = si ? [si.C6, si.C8, si.C10, si.D7.a.Cm8, si.D7.b.Cm8, si.D7.total.Cm8, si.D7.a.debyeAngstrom7, si.D7.b.debyeAngstrom7, si.D7.total.debyeAngstrom7].map(num) : [];
-    lines.push([r.name, r.converged ? 'converged' : 'UNCONVERGED', ...[r.C6, r.C8, r.C10, r.D7.a, r.D7.b, r.D7.total].map(num), ...siCells, r.notes.join('; ')].map(csvField).join(','));
+    lines.push([r.name, r.converged ? 'converged' : 'UNCONVERGED', ...[r.C6, r.C8, r.C10, r.D7.a, r.D7.b, r.D7.total].map(num), ...(withD9 ? [r.D9?.a, r.D9?.b, r.D9?.total].map(num) : []), ...siCells, r.notes.join('; ')].map(csvField).join(','));
   }
-  const blanks = Array(6 + siHead.length).fill('');
+  const blanks = Array(6 + d9Head.length + siHead.length).fill('');
   for (const sk of p.skipped) lines.push([sk.name, 'skipped', ...blanks, sk.reason].map(csvField).join(','));
   return lines.join('\n') + '\n';
 }

@@ -9,6 +9,7 @@ import { describeSurface } from '../model/surface-spec.js';
 import { BOHR_IN_ANGSTROM, HARTREE_IN_EV, bohrToAngstrom, dipoleCoefficientAuToDebyeAngstrom, dipoleCoefficientAuToSI, dispersionAuToSI } from '../model/units.js';
 import { VERSION } from '../version.js';
 import { sig, spreadText, textTable } from './format.js';
+import { LATEX_NAME } from './latex-names.js';
 import type { UnitSystem } from './pair-report.js';
 import { speciesToJson } from './species-json.js';
 
@@ -50,7 +51,7 @@ export function surfaceToJson(p: SurfaceResult, units: UnitSystem = 'atomic'): R
     coefficients: p.coefficients,
     routes: p.routes.map(routeJson),
     skipped: p.skipped,
-    spread: p.spread,
+    spread: { ...p.spread, C5: p.spread.C5 ?? null },
     accuracy: p.accuracy,
     trusted: p.trusted,
     warnings: p.warnings,
@@ -66,9 +67,9 @@ export function surfaceToText(p: SurfaceResult, options: { digits?: number; unit
   const lines: string[] = [];
   lines.push(`${p.species.name} in front of a surface; atomic units`);
   lines.push(`  atom     ${describeSpecies(p.species)}${p.species.source ? `  [${p.species.source}]` : ''}`);
-  lines.push(`  surface  ${describeSurface(p.surface)}`);
+  lines.push(`  surface  ${describeSurface(p.surface, (x) => sig(x, digits))}`);
   lines.push(`  rests on ${p.accuracy.statement} (C3, C5: ${p.accuracy.quantities.C3}; D4: ${p.accuracy.quantities.D4})`);
-  if (p.normal[0] !== 0 || p.normal[1] !== 0) lines.push(`  normal   (${p.normal.map((x) => sig(x, 6)).join(', ')}) in the atom's axes`);
+  if (p.normal[0] !== 0 || p.normal[1] !== 0) lines.push(`  normal   (${p.normal.map((x) => sig(x, digits)).join(', ')}) in the atom's axes`);
   lines.push('');
   const vector = p.coefficients.D4vector !== undefined;
   const header = ['route', 'C3 (Eh a0^3)', 'C5 (Eh a0^5)', 'D4 (e a0^5)', ...(vector ? ['D4 x', 'D4 y', 'D4 z (atom axes)'] : [])];
@@ -117,7 +118,7 @@ export function surfaceCurveRows(curve: SurfaceExactCurve, c: { C3: number; C5?:
 export function surfaceCurveText(curve: SurfaceExactCurve, c: { C3: number; C5?: number; D4: number }, digits: number, length: LengthUnit): string {
   const unit = length === 'bohr' ? 'a0' : 'Å';
   const rows = surfaceCurveRows(curve, c).map((r) => [
-    sig(length === 'bohr' ? r.Z : bohrToAngstrom(r.Z), 6),
+    sig(length === 'bohr' ? r.Z : bohrToAngstrom(r.Z), digits),
     sig(r.energy, digits),
     sig(r.asymptotic.energy, digits),
     sig(r.muNormal, digits),
@@ -126,7 +127,7 @@ export function surfaceCurveText(curve: SurfaceExactCurve, c: { C3: number; C5?:
     r.trusted ? 'ok' : `UNTRUSTED: ${r.reasons.join('; ')}`,
   ]);
   const lines = [
-    `Finite-Z exact solution (multipole order ${curve.order}, image factor ${sig(curve.delta, 10)}): energy shift and dipole along the normal`,
+    `Finite-Z exact solution (multipole order ${curve.order}, image factor ${sig(curve.delta, digits)}): energy shift and dipole along the normal`,
     textTable([`Z (${unit})`, 'E (Eh)', '−C3/Z^3 − C5/Z^5', 'mu_z (e a0)', 'D4/Z^4', 'quanta', 'status'], rows),
   ];
   return lines.join('\n') + '\n';
@@ -145,8 +146,7 @@ export function surfaceDerivedToText(derived: readonly DerivedSurfaceQuantity[],
     `${comment} closed forms, atomic units: one quantum Drude oscillator (${who}) at distance Z in front of a perfect conductor`,
     `${comment} ${derived.map((d) => `${d.name} in ${SURFACE_QUANTITY_MEANING[d.name].units}`).join(', ')}; E(Z) = -C3/Z^3 - C5/Z^5, mu_z = D4/Z^4, z from the surface to the atom`,
   ];
-  const latexName: Record<string, string> = { C3: 'C_3', C5: 'C_5', D4: 'D_4' };
-  for (const d of derived) lines.push(notation === 'latex' ? `${latexName[d.name]} = ${d.display.latex}` : `${d.name} = ${d.display.text}`);
+  for (const d of derived) lines.push(notation === 'latex' ? `${LATEX_NAME[d.name]} = ${d.display.latex}` : `${d.name} = ${d.display.text}`);
   return lines.join('\n') + '\n';
 }
 

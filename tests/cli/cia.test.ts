@@ -55,11 +55,25 @@ describe('dispole cia', () => {
   });
   test('hfd:He-He and a tabulated dipole in debye and ångström are accepted', async () => {
     const table = ['# R/Å  mu/D (invented)', ...Array.from({ length: 60 }, (_, i) => { const R = 1.5 + 0.1 * i; return `${R} ${(0.02 * Math.exp(-(R - 2.5) / 0.35)).toExponential(6)}`; })].join('\n');
-    const { code, out } = await run(['cia', 'He', 'Ar', '--potential', 'hfd:He-He', '--dipole', 'table:mu.txt,R=angstrom,mu=debye', '--temperature', '50', '--fast', '--json'], { 'mu.txt': table });
+    const { code, out, err } = await run(['cia', 'He', 'Ar', '--potential', 'hfd:He-He', '--dipole', 'table:mu.txt,R=angstrom,mu=debye', '--temperature', '50', '--fast', '--json'], { 'mu.txt': table });
     expect(code).toBe(0);
+    // the He–He set used for He–Ar is allowed, but said
+    expect(err).toBe('dispole: warning: --potential hfd:He-He is the published He–He potential, used here for the pair He–Ar\n');
     const j = JSON.parse(out);
     expect(j.potential.basis).toMatch(/Aziz, F\. R\. W\. McCourt, C\. C\. K\. Wong, Mol\. Phys\. 61, 1487 \(1987\)/);
     expect(j.pair.massSource).toMatch(/CIAAW/);
+  });
+});
+
+describe('dispole cia: where the semiclassical expansion fails', () => {
+  // invented He–Ar-like Born–Mayer part; at 1 K bound pairs dominate and the ħ² series is meaningless (common practice:
+  // the Wigner–Kirkwood expansion is an expansion in ħ²/(m kT σ²), E. Wigner, Phys. Rev. 40, 749 (1932), quoted from memory)
+  test('at 1 K the Wigner–Kirkwood moments are far from the quantum ones and a warning says the expansion does not hold', async () => {
+    const { code, out } = await run(['cia', 'He', 'Ar', '--potential', 'tt:A=40,b=1.9', '--dipole', 'exp:mu0=5e-3,R0=6,rho=0.6', '--temperature', '1', '--fast', '--json']);
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    expect(Math.abs(j.temperatures[0].wignerKirkwood.M0 / j.temperatures[0].quantum.M0 - 1)).toBeGreaterThan(0.1);
+    expect(j.warnings.join('\n')).toMatch(/at 1 K the Wigner–Kirkwood moments differ from the quantum ones by .*: the semiclassical ħ² expansion does not hold there/);
   });
 });
 
@@ -71,8 +85,15 @@ describe('dispole cia: bad input → exit 2 naming the field, nothing on stdout'
     expect(err).toMatch(field);
   };
   test('negative or zero temperature', async () => {
-    await bad([...BASE, '--temperature=-5'], /--temperature: must be a finite temperature > 0 K, got -5/);
-    await bad([...BASE, '--temperature', '0'], /--temperature: must be a finite temperature > 0 K, got 0/);
+    await bad([...BASE, '--temperature=-5'], /--temperature: must be from 1 K to 20000 K, got -5/);
+    await bad([...BASE, '--temperature', '0'], /--temperature: must be from 1 K to 20000 K, got 0/);
+    // outside the range the quantum sums are built for (a reviewer's 0.1 K gave M0 ~ 1e37, 1e308 K a crash)
+    await bad([...BASE, '--temperature', '0.1'], /--temperature: must be from 1 K to 20000 K, got 0\.1/);
+    await bad([...BASE, '--temperature', '1e308'], /--temperature: must be from 1 K to 20000 K, got 1e\+308/);
+    await bad(['cia', 'Quelon', 'Virid', '--masses', '1e308,1', '--potential', 'tt:A=60,b=1.75', '--dipole', 'exp:mu0=5e-3,R0=5,rho=1', '--temperature', '100'], /--masses: MA must be a mass from 0\.001 u to 10000 u, got "1e308"/);
+    // a like pair has no induced dipole by symmetry
+    await bad(['cia', 'Quelon', 'Quelon', '--masses', '1,1', '--potential', 'tt:A=60,b=1.75', '--dipole', 'exp:mu0=5e-3,R0=5,rho=1', '--temperature', '100'], /B: Quelon is the same species as A: a like pair has no induced dipole by symmetry/);
+    await bad(['cia', 'Quelon', 'drude:q=1.1,m=0.38,w=0.72', '--masses', '1,1', '--potential', 'tt:A=60,b=1.75', '--dipole', 'exp:mu0=5e-3,R0=5,rho=1', '--temperature', '100'], /is the same species as A/);
   });
   test('a negative Born–Mayer repulsion', async () => {
     await bad(['cia', 'Quelon', 'Virid', '--masses', '1,1', '--potential', 'tt:A=-4,b=1.9', '--dipole', 'exp:mu0=5e-3,R0=5,rho=1', '--temperature', '100'], /--potential\.A: the Born–Mayer repulsion must be > 0/);

@@ -205,3 +205,57 @@ describe('dispole curve: series through D9 (and D10) and a default order that ma
     expect(an.out).toMatch(/E_int \(Eh\)\*/);
   });
 });
+
+describe('curve energies in the units a spectroscopist uses (--units si --energy-unit)', () => {
+  // 1 Eh in each unit, CODATA 2018 (E. Tiesinga, P. J. Mohr, D. B. Newell, B. N. Taylor, Rev. Mod. Phys. 93, 025010
+  // (2021)): 219474.6313632 cm^-1, 3.1577502480407e5 K, 27.211386245988 eV, 2625.4996394799 kJ/mol
+  const CODATA_2018 = { 'cm-1': 219474.6313632, K: 3.1577502480407e5, meV: 27211.386245988, 'kJ/mol': 2625.4996394799 } as const;
+  const args = ['curve', 'Quelon', 'Virid', '--from', '16', '--to', '24', '--points', '2', '--length', 'bohr', '--order', '3'];
+  test.each(Object.entries(CODATA_2018))('%s: JSON, CSV and text give E_int in that unit (factor %s per hartree)', async (unit, factor) => {
+    const j = JSON.parse((await run([...args, '--json', '--units', 'si', '--energy-unit', unit])).out);
+    expect(j.siUnits.energy).toBe(unit);
+    expect(j.points[0].energy).toBeLessThan(0);
+    for (const p of j.points) expectClose(p.si.energy, p.energy * factor, 1e-12);
+    const csv = (await run([...args, '--csv', '--units', 'si', '--energy-unit', unit])).out;
+    const [head, first] = csv.split('\n');
+    const col = head.split(',').indexOf(`E_int_${unit.replace('/', '_per_')}`);
+    expect(col).toBeGreaterThan(0);
+    expectClose(Number(first.split(',')[col]), j.points[0].energy * factor, 1e-12);
+    const text = (await run([...args, '--units', 'si', '--energy-unit', unit])).out;
+    expect(text).toContain(`energies in ${unit === 'cm-1' ? 'cm^-1' : unit} (CODATA 2018)`);
+  });
+  test('--energy-unit without --units si changes nothing and is refused (exit 2, the option named, no output)', async () => {
+    for (const cmd of [args, ['cluster', 'g.xyz'], ['density', 'Quelon', 'Virid', '--R', '6']]) {
+      const { code, out, err } = await run([...cmd, '--energy-unit', 'K'], { 'g.xyz': '2\n\nQuelon 0 0 0\nVirid 0 0 4\n' });
+      expect(code).toBe(2);
+      expect(out).toBe('');
+      expect(err).toMatch(/^dispole: error: --energy-unit: .*add --units si/);
+    }
+  });
+});
+
+describe('curve and density say what the numbers rest on, as pair does', () => {
+  test('--help names the QDO stand-ins (He-qdo … Xe-qdo), not the response tables He … Xe', async () => {
+    const { out } = await run(['curve', '--help']);
+    expect(out.replace(/\s+/g, ' ')).toContain('for the atoms: H-qdo, He-qdo … Xe-qdo');
+    expect(out).not.toMatch(/H-qdo, He …/);
+  });
+  test('curve He-qdo He-qdo: the MODEL warning and level of pair, in text and JSON', async () => {
+    const args = ['curve', 'He-qdo', 'He-qdo', '--points', '2', '--order', '3'];
+    const pairJson = JSON.parse((await run(['pair', 'He-qdo', 'He-qdo', '--json'])).out);
+    const text = (await run(args)).out;
+    expect(text).toMatch(/^Model accuracy \(physical; levels He-qdo: model, He-qdo: model\): He-qdo: MODEL/m);
+    expect(text).toContain('warning: MODEL: He-qdo is a quantum Drude oscillator standing in for helium');
+    const j = JSON.parse((await run([...args, '--json'])).out);
+    expect(j.accuracy.level).toEqual({ a: 'model', b: 'model' });
+    expect(j.accuracy.statement).toBe(pairJson.accuracy.statement);
+    const model = (w: string[]) => w.filter((x) => x.startsWith('MODEL:'));
+    expect(model(j.warnings)).toEqual(model(pairJson.warnings));
+    expect(model(j.warnings)).toHaveLength(1);
+  });
+  test('curve Quelon Virid: exact levels and no MODEL warning', async () => {
+    const j = JSON.parse((await run([...BASE, '--json', '--order', '3', '--points', '2'])).out);
+    expect(j.accuracy.level).toEqual({ a: 'exact', b: 'exact' });
+    expect(j.warnings.some((w: string) => w.startsWith('MODEL'))).toBe(false);
+  });
+});

@@ -67,3 +67,49 @@ describe('dispole density', () => {
     expect(err).toMatch(/Nobody: is not a known species; use a built-in name \(.*Quelon/);
   });
 });
+
+describe('dispole density --units si', () => {
+  // 1 e a0 = 2.541746473 D and 1 Eh = 3.1577502480407e5 K, from CODATA 2018 (Tiesinga, Mohr, Newell, Taylor,
+  // Rev. Mod. Phys. 93, 025010 (2021)); the debye is 1e-21/c C m (common practice)
+  const args = ['density', 'Quelon', 'Virid', '--R', '6', '--grid', '41', '--length', 'bohr', '--order', '3'];
+  test('JSON: an si block with the dipoles in debye and E_int in --energy-unit; the atomic values unchanged', async () => {
+    const atomic = JSON.parse((await run([...args, '--json'])).out);
+    expect(atomic.si).toBeUndefined();
+    const { code, out } = await run([...args, '--json', '--units', 'si', '--energy-unit', 'K']);
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    expect(j.muA).toBe(atomic.muA);
+    expect(j.si.units).toEqual({ dipole: 'debye', energy: 'K', constants: 'CODATA 2018' });
+    expectClose(j.si.muA, atomic.muA * 2.541746473, 1e-9);
+    expectClose(j.si.muB, atomic.muB * 2.541746473, 1e-9);
+    expectClose(j.si.energy, atomic.energy * 3.1577502480407e5, 1e-12);
+  });
+  test('text, CSV and the figure say the SI values (default energy unit cm^-1)', async () => {
+    const j = JSON.parse((await run([...args, '--json'])).out);
+    const text = (await run([...args, '--units', 'si', '--digits', '8'])).out;
+    const m = /SI \(CODATA 2018\): mu_A,z = (\S+) D, mu_B,z = (\S+) D, E_int = (\S+) cm\^-1/.exec(text);
+    expect(m).not.toBeNull();
+    expectClose(Number(m![1]), j.muA * 2.541746473, 1e-7);
+    expectClose(Number(m![3]), j.energy * 219474.6313632, 1e-7); // CODATA 2018: 1 Eh = 219474.6313632 cm^-1
+    const csv = (await run([...args, '--csv', '--units', 'si'])).out;
+    expect(csv).toMatch(/^# SI \(CODATA 2018\): mu_A,z = \S+ D, mu_B,z = \S+ D, E_int = \S+ cm\^-1$/m);
+    const { files } = await run([...args, '--units', 'si', '--energy-unit', 'meV', '--svg', 'si.svg']);
+    expect(files['si.svg'] as string).toMatch(/interaction energy \S+ meV/);
+    expect(files['si.svg'] as string).not.toMatch(/E<tspan[^>]*>h<\/tspan>\. Dotted/);
+  });
+});
+
+describe('density says what the numbers rest on, as pair does', () => {
+  test('He-qdo with Quelon: level per species and the MODEL warning in text, JSON and CSV', async () => {
+    const args = ['density', 'He-qdo', 'Quelon', '--R', '8', '--grid', '41', '--order', '3'];
+    const text = (await run(args)).out;
+    expect(text).toMatch(/^Model accuracy \(physical; levels He-qdo: model, Quelon: exact\)/m);
+    expect(text).toContain('warning: MODEL: He-qdo is a quantum Drude oscillator standing in for helium');
+    const j = JSON.parse((await run([...args, '--json'])).out);
+    expect(j.accuracy.level).toEqual({ a: 'model', b: 'exact' });
+    expect(j.warnings.filter((w: string) => w.startsWith('MODEL:'))).toHaveLength(1);
+    expect((await run([...args, '--csv'])).out).toMatch(/^# warning: MODEL: He-qdo/m);
+    const exact = JSON.parse((await run(['density', 'Quelon', 'Virid', '--R', '8', '--grid', '41', '--order', '3', '--json'])).out);
+    expect(exact.warnings.some((w: string) => w.startsWith('MODEL'))).toBe(false);
+  });
+});

@@ -68,3 +68,22 @@ describe('dispole derive', () => {
     expect(a.err).toContain('variables: the alpha form needs isotropic species');
   });
 });
+
+describe('dispole derive --surface refuses options without meaning there (exit 2, option named, nothing on stdout)', () => {
+  for (const [argv, field] of [
+    [['derive', '--surface', '--in', 'alpha'], /--in/],
+    [['derive', '--surface', 'C3', '--identical'], /--identical/],
+  ] as const) {
+    test(argv.join(' '), async () => {
+      const { code, out, err } = await run([...argv]);
+      expect(code).toBe(2);
+      expect(out).toBe('');
+      expect(err).toMatch(field);
+    });
+  }
+  test('--in mass stays allowed: C3 = q²/(8 m w) (derived here, tests/engines/surface.test.ts)', async () => {
+    const { code, out } = await run(['derive', '--surface', 'C3', '--in', 'mass']);
+    expect(code).toBe(0);
+    expect(out).toContain('C3 = q^2/(8*m*w)');
+  });
+});

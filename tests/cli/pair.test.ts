@@ -124,3 +124,39 @@ describe('route notes in the human report', () => {
     expect(out).toMatch(/Only the response route could run: no cross-check\./);
   });
 });
+
+describe('pair: charged tdhf species and D9 in every format', () => {
+  test('an ion (tdhf:Z=11,charge=1) warns that the charge-induced terms are not included; the neutral atom does not', async () => {
+    // induction of an ion: E ∋ −alpha_B q²/(2R^4), mu_B ∋ alpha_B q/R^2 (classical electrostatics; common practice, e.g. A. J. Stone, The Theory of Intermolecular Forces, 2013)
+    const ion = JSON.parse((await run(['pair', 'tdhf:Z=11,charge=1,basis=12', 'Quelon', '--json'])).out);
+    const w = ion.warnings.filter((x: string) => x.includes('is an ion'));
+    expect(w).toHaveLength(1);
+    expect(w[0]).toMatch(/charge \+1\): only the dispersion \(C_n\) and dispersion-induced \(D7\) parts are given; the charge-induced \(induction\) terms.*−alpha_B q_A²\/\(2R\^4\).*alpha_B q_A\/R\^2.*dominate at long range and are NOT included/);
+    const neutral = JSON.parse((await run(['pair', 'tdhf:He,basis=12', 'Quelon', '--json'])).out);
+    expect(neutral.warnings.some((x: string) => x.includes('is an ion'))).toBe(false);
+  });
+  test('--csv has the D9 columns the text and JSON show (perturbation route), empty for routes without D9', async () => {
+    const j = JSON.parse((await run(['pair', 'Quelon', 'Virid', '--json'])).out);
+    const csv = (await run(['pair', 'Quelon', 'Virid', '--csv'])).out.split('\n').filter((l) => l && !l.startsWith('#'));
+    const head = csv[0].split(',');
+    const i = head.indexOf('D9.a (e a0^10)');
+    expect(i).toBeGreaterThan(head.indexOf('D7.total (e a0^8)'));
+    const pert = csv.find((l) => l.startsWith('perturbation,'))!.split(',');
+    expect(Number(pert[i])).toBe(j.coefficients.D9.a);
+    expect(Number(pert[i + 2])).toBe(j.coefficients.D9.total);
+    expect(csv.find((l) => l.startsWith('response,'))!.split(',')[i]).toBe('');
+    expect(j.accuracy.quantities).toEqual({ dispersion: 'exact', D7: 'exact', D9: 'exact' });
+  });
+  test('response-only pair (He Ar): no D9 in JSON, and the text and CSV say why', async () => {
+    const j = JSON.parse((await run(['pair', 'He', 'Ar', '--json'])).out);
+    expect(j.coefficients.D9).toBeUndefined();
+    expect(j.accuracy.quantities.D9).toBeUndefined();
+    expect((await run(['pair', 'He', 'Ar'])).out).toMatch(/^D9: not available from the response route \(no response formula yet\)$/m);
+    expect((await run(['pair', 'He', 'Ar', '--csv'])).out).toMatch(/^# D9: not available from the response route/m);
+    expect((await run(['pair', 'Quelon', 'Virid'])).out).not.toContain('D9: not');
+  });
+  test('help and the unknown-species error name the tdhf: inline spec', async () => {
+    expect((await run(['pair', '--help'])).out).toMatch(/tdhf:Ar/);
+    expect((await run(['pair', 'Quelon', 'Nosuch'])).err).toMatch(/inline spec like drude:q=1\.2,m=0\.4,w=0\.9 or tdhf:Ar/);
+  });
+});

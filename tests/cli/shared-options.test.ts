@@ -36,10 +36,10 @@ const PER_COMMAND: Record<string, ReadonlyArray<keyof typeof SHARED_OPTIONS>> = 
   table: ['species', 'units', 'digits', 'agreementTol', 'quadratureTol', 'quantaPerCentre', 'csv'],
   cluster: ['species', 'length', 'units', 'energyUnit', 'digits', 'csv'],
   curve: ['species', 'length', 'units', 'energyUnit', 'digits', 'basisTol', 'totalQuanta', 'csv'],
-  density: ['species', 'length', 'digits', 'basisTol', 'totalQuanta', 'csv'],
+  density: ['species', 'length', 'units', 'energyUnit', 'digits', 'basisTol', 'totalQuanta', 'csv'],
   derive: [],
   check: [],
-  species: ['species'],
+  species: ['species', 'csv'],
 };
 
 describe('shared options in every command’s --help', () => {
@@ -60,6 +60,15 @@ describe('shared options in every command’s --help', () => {
     for (const key of name in PER_COMMAND ? [...EVERYWHERE, ...PER_COMMAND[name]] : []) expect(helpEntry(out, SHARED_OPTIONS[key].flags), `${name} lacks ${SHARED_OPTIONS[key].flags}`).toBeDefined();
     // old spellings are hidden
     for (const old of ['--agree ', '--rel-tol ', '--tolerance ', '--max-quanta ', '--bohr ']) expect(out).not.toContain(`  ${old}`);
+  });
+  test('--units help claims energies in --energy-unit only conditionally (pair, table, surface have no --energy-unit)', async () => {
+    for (const c of commandIndex) {
+      const { out } = await run([c.name, '--help']);
+      const units = helpEntry(out, SHARED_OPTIONS.units.flags);
+      if (units === undefined || helpEntry(out, SHARED_OPTIONS.energyUnit.flags) !== undefined) continue;
+      expect(units, c.name).not.toMatch(/energies in --energy-unit/);
+    }
+    expect(helpEntry((await run(['pair', '--help'])).out, '--energy-unit <unit>')).toBeUndefined();
   });
   test('every command has a description in its --help', async () => {
     for (const c of commandIndex) {

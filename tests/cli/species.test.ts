@@ -17,4 +17,32 @@ describe('dispole species', () => {
     expect(list[0]).toMatchObject({ name: 'Brim', kind: 'drude', q: 1 });
     expect(list.map((s: { name: string }) => s.name)).toContain('Virid');
   });
+  test('--csv: one RFC 4180 row per species in the order of --json, levels on "#" lines; awkward names and sources quoted', async () => {
+    const yaml = 'species:\n  "Odd, \\"one\\"":\n    kind: drude\n    q: 1\n    m: 1\n    w: 1\n    source: "invented test data,\\nsecond line"\n';
+    const io = memoryIO({ 'x.yaml': yaml });
+    expect(await runCli(['species', '--csv', '--species', 'x.yaml'], io)).toBe(0);
+    const lines = io.out.trimEnd().split('\n');
+    expect(lines[0]).toMatch(/^# dispole \S+: the species every command accepts by name/);
+    expect(lines[1]).toMatch(/^# levels: exact = /);
+    expect(lines[2]).toBe('name,kind,level,definition_atomic_units,source');
+    expect(lines[3]).toBe('"Odd, ""one""",drude,exact,drude q=1 m=1 w=1,"invented test data, second line"');
+    const json = memoryIO({ 'x.yaml': yaml });
+    await runCli(['species', '--json', '--species', 'x.yaml'], json);
+    const list = JSON.parse(json.out) as Array<{ name: string; accuracy: { level: string } }>;
+    const rows = lines.slice(3);
+    expect(rows).toHaveLength(list.length);
+    // hydrogen is an exact one-electron atom (non-relativistic, infinite nuclear mass: common practice)
+    expect(rows.find((r) => r.startsWith('H,'))).toMatch(/^H,hydrogenic,exact,/);
+    rows.slice(1).forEach((r, i) => expect(r.startsWith(`${list[i + 1].name},`)).toBe(true));
+    expect(rows.slice(1).map((r) => /,(exact|first-principles|rescaled|model),/.exec(r)![1])).toEqual(list.slice(1).map((s) => s.accuracy.level));
+  });
+  test('--out species.csv chooses CSV by the extension; --pretty indents the JSON', async () => {
+    const io = memoryIO();
+    expect(await runCli(['species', '--out', 'species.csv', '--quiet'], io)).toBe(0);
+    expect(io.out).toBe('');
+    expect((io.files['species.csv'] as string).split('\n')[2]).toBe('name,kind,level,definition_atomic_units,source');
+    const pretty = memoryIO();
+    expect(await runCli(['species', '--json', '--pretty'], pretty)).toBe(0);
+    expect(pretty.out.split('\n')[1]).toMatch(/^ {2}\{$/);
+  });
 });

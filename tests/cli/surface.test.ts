@@ -41,6 +41,21 @@ describe('dispole surface --json contract', () => {
     expectClose(j.si.C3.eVAngstrom3, j.coefficients.C3 * 27.211386245988 * 0.529177210903 ** 3, 1e-12);
     expectClose(j.si.D4.debyeAngstrom4, j.coefficients.D4 * 2.541746473 * 0.529177210903 ** 4, 1e-9);
   });
+  test('spread has a C5 entry like C3: a number for two routes, 0 for one (no cross-check)', async () => {
+    const j = JSON.parse((await run(['surface', 'Quelon', '--surface', 'conductor', '--json'])).out);
+    expect(typeof j.spread.C5).toBe('number');
+    expect(j.spread.C5).toBeLessThan(1e-8);
+    const one = JSON.parse((await run(['surface', 'Quelon', '--surface', 'conductor', '--routes', 'response', '--json'])).out);
+    expect(one.spread.C5).toBe(0);
+    expect(one.spread.C3).toBe(0);
+  });
+  test('--digits governs every number of the text report (image factor of eps = 2 is 1/3, derived here)', async () => {
+    const { code, out } = await run(['surface', 'H', '--surface', 'eps=2', '--digits', '4']);
+    expect(code).toBe(0);
+    expect(out).toContain('(eps−1)/(eps+1) = 0.3333)');
+    expect(out).not.toMatch(/3333333/);
+    expect(out).toMatch(/^perturbation +0\.08333 /m); // C3 = (1/3)·(1/4) for hydrogen (Lennard-Jones 1932, quoted from memory)
+  });
   test('the text report states the sign convention and the routes agree', async () => {
     const { code, out } = await run(['surface', 'Quelon', '--surface', 'conductor']);
     expect(code).toBe(0);
@@ -56,6 +71,13 @@ describe('dispole surface --json contract', () => {
     expect(j.routes.map((r: { name: string }) => r.name)).toEqual(['response']);
     expect(j.coefficients.C3).toBeGreaterThan(0);
     expect(j.coefficients.C3).toBeLessThan(0.25);
+  });
+  test('an ion (tdhf:Z=11,charge=1) is warned: its image-charge energy and image-field dipole are not included', async () => {
+    const { code, out } = await run(['surface', 'tdhf:Z=11,charge=1,basis=12', '--surface', 'conductor', '--json']);
+    expect(code).toBe(0);
+    const j = JSON.parse(out);
+    // classical image of a point charge, −q²/(4Z) (J. D. Jackson, Classical Electrodynamics, 3rd ed. 1999, §2.1)
+    expect(j.warnings.join('\n')).toMatch(/is an ion \(charge \+1\): only the dispersion parts \(C3, C5, D4\) are given; the image-charge energy −q²\/\(4Z\)/);
   });
   test('--exact adds the finite-Z curve of a QDO', async () => {
     const { code, out } = await run(['surface', 'Quelon', '--surface', 'conductor', '--exact', '--points', '3', '--length', 'bohr', '--from', '8', '--to', '16', '--total-quanta', '14', '--json']);
@@ -76,6 +98,13 @@ describe('dispole surface bad input: exit 2, field named, nothing on stdout', ()
     ['--to below --from', ['surface', 'Quelon', '--surface', 'conductor', '--exact', '--from', '5', '--to', '3'], {}, /--to/],
     ['zero normal', ['surface', 'H', '--surface', 'conductor', '--normal', '0,0,0'], {}, /--normal/],
     ['exact for a frequency-dependent surface', ['surface', 'Quelon', '--surface', 'drude:wp=0.5,gamma=0.01', '--exact'], {}, /--exact/],
+    ['a plasma frequency beyond 1e6 Eh', ['surface', 'H', '--surface', 'drude:wp=1e308,gamma=0'], {}, /--surface\.drude\.wp: .*1000000/],
+    ['a damping beyond 1e6 Eh', ['surface', 'H', '--surface', 'drude-lorentz:wp=0.5,w0=0.3,gamma=1e9'], {}, /--surface\.drude-lorentz\[0\]\.gamma/],
+    ['--from beyond the upper limit, in the user’s unit', ['surface', 'Quelon', '--surface', 'conductor', '--exact', '--from', '1e308'], {}, /^(?!.*Infinity)(?!.*--to).*--from: .*at most 529177 Å/],
+    ['--to beyond the upper limit (bohr)', ['surface', 'Quelon', '--surface', 'conductor', '--exact', '--bohr', '--from', '5', '--to', '2e6'], {}, /--to: .*at most 1e\+06 bohr|--to: .*at most 1000000 bohr/],
+    ['curve: --from beyond the upper limit (shared check)', ['curve', 'Quelon', 'Quelon', '--from', '1e308'], {}, /^(?!.*Infinity).*--from: .*at most 529177 Å/],
+    ['--from without --exact', ['surface', 'Quelon', '--surface', 'conductor', '--from', '3'], {}, /--from: applies with --exact only/],
+    ['--points without --exact', ['surface', 'Quelon', '--surface', 'conductor', '--points', '4'], {}, /--points: applies with --exact only/],
   ];
   for (const [name, argv, files, field] of cases) {
     test(name, async () => {
@@ -122,6 +151,22 @@ describe('dispole table --surface (the surface column set)', () => {
     expect(text).toMatch(/Quelon .* ok/);
     const csv = (await run(['table', 'Quelon', '--surface', 'eps=3', '--csv', '--units', 'si'])).out;
     expect(csv).toMatch(/C3 \(eV Å\^3\)/);
+  });
+  test('--latex writes the booktabs float (structure checked in tests/report/table.test.ts), also by the .tex extension', async () => {
+    const { code, out } = await run(['table', 'H', '--surface', 'conductor', '--latex']);
+    expect(code).toBe(0);
+    expect(out).toContain('\\begin{tabular}{lrrrrc}');
+    expect(out).toMatch(/^ {4}H & \$0\.2500000\$ & /m); // C3 = 1/4 (Lennard-Jones 1932, quoted from memory)
+    const io = memoryIO({});
+    expect(await runCli(['table', 'H', '--surface', 'conductor', '--out', 't.tex', '--quiet'], io)).toBe(0);
+    expect(io.files['t.tex']).toBe(out);
+  });
+  test('a "levels:" line states what C3/C5 and D4 rest on, per species (text, CSV comment, JSON)', async () => {
+    const text = (await run(['table', 'H', 'Quelon', '--surface', 'conductor'])).out;
+    expect(text).toMatch(/^levels: C3, C5: .*; D4: .*; species: H exact, Quelon /m);
+    const csv = (await run(['table', 'H', '--surface', 'conductor', '--csv'])).out;
+    expect(csv).toMatch(/^# levels: C3, C5: exact; D4: exact; species: H exact /m);
+    expect(JSON.parse((await run(['table', 'H', '--surface', 'conductor', '--json'])).out).levels).toMatch(/^C3, C5: exact; D4: exact/);
   });
   test('--pairs cannot be combined with --surface', async () => {
     const { code, out, err } = await run(['table', 'Quelon', 'Virid', '--surface', 'conductor', '--pairs', 'Quelon-Virid']);

@@ -125,7 +125,8 @@ describe('accuracy levels', () => {
   test('the accuracy of a pair is the same in computePair and pairAccuracy', () => {
     const a = resolveSpecies('H'), b = resolveSpecies('Quelon');
     const p = computePair(a, b);
-    expect(p.accuracy).toEqual(pairAccuracy(a, b, p.coefficients.D7));
+    expect(p.accuracy).toEqual(pairAccuracy(a, b, p.coefficients.D7, {}, p.coefficients.D9 !== undefined));
+    expect(p.accuracy.quantities.D9).toBe(p.accuracy.quantities.D7); // D9 rests on the same response and B as D7 (derived here)
     expect(p.accuracy.level).toEqual({ a: 'exact', b: 'exact' });
     expect(p.warnings.some((w) => w.startsWith('MODEL'))).toBe(false);
   });

@@ -83,8 +83,12 @@ describe('the two routes for an invented He–Ar-like pair', () => {
     const light = computeCia({ ...HE_AR_LIKE, temperatures: [100] }).temperatures[0];
     const heavy = computeCia({ ...HE_AR_LIKE, masses: [36, 360], temperatures: [100] }).temperatures[0];
     const q = (t: typeof light) => t.classical.M0 / t.quantum.M0 - 1;
-    expectClose(q(light) / q(heavy), 9, 0.05);
+    // ÷9 up to the next order: cl/q − 1 = −a/m + (a² − b)/m² with |a/m| ≈ 8% at the light mass (derived here)
+    expectClose(q(light) / q(heavy), 9, 0.12);
     expect(Math.abs(q(heavy))).toBeLessThan(0.01);
+    // the Wigner–Kirkwood residual is the ħ⁴ order: ÷81 ideally; > ÷10 leaves room for the coarse numerics here
+    const wk = (t: typeof light) => Math.abs(t.difference.wignerKirkwoodM0);
+    expect(wk(heavy)).toBeLessThan(wk(light) / 10);
   });
   test('γ1 and α1 are the band integrals of the quantum M0 and M1 (absorption.ts; Loschmidt constant CODATA 2018)', () => {
     const t = computeCia(HE_AR_LIKE).temperatures[0];

@@ -266,3 +266,21 @@ describe('library edge validation', () => {
     expect(inputErrorOf(() => surfaceExactCurve(drude({ q: 1, m: 1, w: 1 }), [5, 0])).field).toBe('Z[1]');
   });
 });
+
+describe('Drude–Lorentz parameter ranges (derived here: wp in [1e-6, 1e6] Eh, w0 and gamma in [0, 1e6] Eh keep eps(iu) finite)', () => {
+  test('out-of-range parameters are InputErrors naming the field, in the spec and as plain data', () => {
+    expect(inputErrorOf(() => parseSurfaceSpec('drude:wp=1e308,gamma=0', '--surface')).field).toBe('--surface.drude.wp');
+    expect(inputErrorOf(() => parseSurfaceSpec('drude:wp=1e-9,gamma=0', '--surface')).field).toBe('--surface.drude.wp');
+    expect(inputErrorOf(() => parseSurfaceSpec('drude:wp=0.5,gamma=1e300', '--surface')).field).toBe('--surface.drude.gamma');
+    expect(inputErrorOf(() => parseSurfaceSpec('drude-lorentz:wp=0.5,w0=2e6,gamma=0', '--surface')).field).toBe('--surface.drude-lorentz[0].w0');
+    expect(inputErrorOf(() => parseSurfaceSpec('drude:gamma=0.1', '--surface')).field).toBe('--surface.drude.wp');
+    expect(inputErrorOf(() => computeSurface(H, { kind: 'drude-lorentz', form: 'drude', terms: [{ wp: 1e308, w0: 0, gamma: 0 }] })).field).toBe('surface.terms[0].wp');
+    expect(parseSurfaceSpec('drude:wp=1e6,gamma=1e6')).toEqual({ kind: 'drude-lorentz', form: 'drude', terms: [{ wp: 1e6, w0: 0, gamma: 1e6 }] });
+  });
+  test('a Drude metal images like a conductor as u → 0 (eps(0) = ∞, McLachlan 1963): Δ = 1, never NaN, even where eps − 1 overflows', () => {
+    const f = imageFactor(parseSurfaceSpec('drude:wp=1e6,gamma=0'));
+    expect(f.delta(1e-200)).toBe(1); // eps − 1 = 1e12/1e-400 overflows to ∞
+    expect(f.delta(0)).toBe(1);
+    expectClose(imageFactor(parseSurfaceSpec('drude:wp=1,gamma=0')).delta(1), 1 / 3, 1e-15); // S = 1: Δ = 1/3 (derived here)
+  });
+});

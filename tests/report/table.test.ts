@@ -4,10 +4,16 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, test } from 'vitest';
 import { allPairs, computeTable } from '../../src/engines/table.js';
-import { demoSpecies } from '../../src/model/builtin-species.js';
+import { demoSpecies, resolveSpecies } from '../../src/model/builtin-species.js';
 import { drude } from '../../src/model/drude.js';
 import { csvField, latexEscape, latexNumber, markdownEscape, renderTable, TABLE_FORMATS } from '../../src/report/table/index.js';
 import { VERSION } from '../../src/version.js';
+import { computeSurfaceTable } from '../../src/engines/surface/surface-table.js';
+import { deriveSurfaceQuantities } from '../../src/engines/symbolic/symbolic-surface.js';
+import { hydrogenic } from '../../src/model/hydrogenic.js';
+import { LATEX_NAME } from '../../src/report/latex-names.js';
+import { surfaceDerivedToText } from '../../src/report/surface-report.js';
+import { renderSurfaceTable } from '../../src/report/table/surface-columns.js';
 import { expectClose } from '../helpers/tolerance.js';
 
 const OPTIONS = { routes: ['perturbation', 'response'], agreement: 1e-8, relTol: 1e-13 };
@@ -242,6 +248,35 @@ describe('LaTeX (booktabs)', () => {
     expect(out).toContain('% sources:\n%   [1] first line second line\n');
     expect(renderTable(t, 'text', { units: 'atomic', digits: 5 })).toMatch(/^Two Lines–Quelon /m);
   });
+  test('surface column set (table --surface --latex): passes the structural check; hydrogen C3 = 1/4, D4 = 99/16; one notation with derive --surface', () => {
+    const hydrogen = hydrogenic({ Z: 1 }, 'H');
+    const t = computeSurfaceTable([hydrogen, Quelon, awkward], { kind: 'conductor' });
+    const tex = renderSurfaceTable(t, 'latex', { units: 'atomic', digits: 7 });
+    expect(latexProblems(tex)).toEqual([]);
+    // species, C3, C5, D4, spread, source: a row with a missing cell is found
+    expect(latexProblems(tex.replace(' & $', ' $'))[0]).toMatch(/cells for 6 columns/);
+    // hydrogen 1s in front of a perfect conductor: C3 = <r²>/12 = 1/4 (image-dipole result of J. E. Lennard-Jones,
+    // Trans. Faraday Soc. 28, 333 (1932), volume and page quoted from memory) and D4 = 99/16 = 6.1875 (derived here,
+    // in tests/engines/surface.test.ts); formatted to 7 significant digits
+    expect(tex).toMatch(/^ {4}H & \$0\.2500000\$ & \$1\.125000\$ & \$6\.187500\$ & /m);
+    expect(tex).toContain('Odd\\_\\&\\textbar{}"x,y"\\%');
+    // the notation of derive --surface --latex (src/report/latex-names.ts)
+    for (const name of ['C3', 'C5', 'D4'] as const) expect(tex).toContain(`& $${LATEX_NAME[name]}$ &`);
+    const derived = surfaceDerivedToText(deriveSurfaceQuantities(['C3', 'C5', 'D4'], false), false, 'latex');
+    for (const name of ['C3', 'C5', 'D4'] as const) expect(derived).toMatch(new RegExp(`^${LATEX_NAME[name].replace(/[\\{}^]/g, '\\$&')} = `, 'm'));
+    expect(tex).toContain('($E_\\mathrm{h}\\,a_0^{3}$)');
+    const si = renderSurfaceTable(t, 'latex', { units: 'si', digits: 5 });
+    expect(latexProblems(si)).toEqual([]);
+    expect(si).toContain('in SI units (CODATA 2018)');
+    expect(si).toContain('($\\mathrm{D}\\,\\mathring{\\mathrm{A}}^{4}$)');
+  });
+  test('surface column set: a single-route row carries the double dagger and its note', () => {
+    const t = computeSurfaceTable([Quelon], { kind: 'conductor' }, { routes: ['response'] });
+    const tex = renderSurfaceTable(t, 'latex', { units: 'atomic', digits: 5 });
+    expect(latexProblems(tex)).toEqual([]);
+    expect(tex).toMatch(/^ {4}Quelon\$\^\{\\ddagger\}\$ & /m);
+    expect(tex).toContain('Only one route could run: no cross-check.');
+  });
   const tex = ['pdflatex', 'lualatex', 'xelatex'].find((e) => spawnSync('which', [e]).status === 0);
   if (tex) {
     test(`compiles with ${tex}`, () => {
@@ -253,4 +288,18 @@ describe('LaTeX (booktabs)', () => {
   } else {
     test.skip('compiles with a TeX engine — skipped: no pdflatex, lualatex or xelatex on PATH', () => {});
   }
+});
+
+describe('provenance: the route that served as reference', () => {
+  test('recommended atoms run only the response route: the header names it as the reference, not the unrun perturbation route', () => {
+    const t = computeTable(allPairs([resolveSpecies('He'), resolveSpecies('Ne')]), { routes: ['perturbation', 'response'] });
+    const text = renderTable(t, 'text', { units: 'atomic', digits: 6 });
+    expect(text).toContain('routes: perturbation, response; ran: response; reference: response (the first listed route that ran for each pair; perturbation ran for no pair)\n');
+    expect(text).not.toContain('perturbation (reference)');
+  });
+  test('a mixed table names both references; a table where the first route always ran keeps the plain form', () => {
+    const mixed = computeTable(allPairs([Quelon, resolveSpecies('He')]), { routes: ['perturbation', 'response'] });
+    expect(renderTable(mixed, 'text', { units: 'atomic', digits: 6 })).toContain('routes: perturbation (reference), response; reference: perturbation or response (the first listed route that ran for each pair)\n');
+    expect(renderTable(table, 'text', { units: 'atomic', digits: 6 })).toContain('routes: perturbation (reference), response\n');
+  });
 });

@@ -7,6 +7,7 @@ import type { PotentialSpec } from '../../engines/cia/potential.js';
 import { computePair, type PairResult } from '../../engines/pair.js';
 import { DIPOLE_TO_AU, ENERGY_TO_HARTREE, parseDipoleArgument, parsePotentialArgument, parseSpectrumRange, parseTwoColumnTable } from '../../model/cia-spec.js';
 import { InputError } from '../../model/errors.js';
+import type { Species } from '../../model/species.js';
 import { requireFinite } from '../../model/validate.js';
 import { ciaToCsv, ciaToJson, ciaToText } from '../../report/cia-report.js';
 import { ciaFigure } from '../../report/svg/cia-figure.js';
@@ -64,13 +65,16 @@ export function registerCia(program: Command, ctx: CommandContext): void {
   cmd.action((a: string, b: string, flags: CiaFlags) => {
       const format = chooseFormat(flags, ['text', 'csv', 'json']);
       const [A, B] = resolveAll([a, b], loadSpeciesFile(ctx.io, flags.species));
+      if (sameSpecies(A, B)) {
+        throw new InputError('B', `${B.name} is the same species as A: a like pair has no induced dipole by symmetry (mu(R) = 0), so no translational collision-induced band`);
+      }
       const masses = resolveMasses(flags.masses, [A.name, B.name]);
       const potArg = parsePotentialArgument(flags.potential);
       const dipArg = parseDipoleArgument(flags.dipole);
       let pair: PairResult | undefined;
       const reference = () => (pair ??= computePair(A, B));
       const refText = () => `from dispole's reference route (${reference().routes[0].name}) for ${A.name}–${B.name}${reference().trusted ? '' : ' (UNTRUSTED there)'}`;
-      const temperatures = flags.temperature.map((t) => requireFinite('--temperature', t));
+      const temperatures = flags.temperature.map((t) => requireTemperature(requireFinite('--temperature', t)));
 
       let potential: PotentialSpec;
       if (potArg.kind === 'tt') {
@@ -85,8 +89,14 @@ export function registerCia(program: Command, ctx: CommandContext): void {
           C10: potArg.C10 ?? c!.C10 ?? 0,
           dispersionSource: given ? 'given by the user' : refText(),
         };
-      } else if (potArg.kind === 'hfd') potential = { kind: 'hfd', set: potArg.set };
-      else {
+      } else if (potArg.kind === 'hfd') {
+        potential = { kind: 'hfd', set: potArg.set };
+        // a published set belongs to one pair of atoms: say so when the species look like another pair
+        const element = (name: string) => name.replace(/^tdhf:/, '').replace(/-qdo$/, '');
+        const setAtoms = potArg.set.split('-').sort().join('–');
+        const pairAtoms = [element(A.name), element(B.name)].sort().join('–');
+        if (setAtoms !== pairAtoms) ctx.io.stderr(`dispole: warning: --potential hfd:${potArg.set} is the published ${setAtoms} potential, used here for the pair ${A.name}–${B.name}\n`);
+      } else {
         const t = parseTwoColumnTable(ctx.io.readFile(potArg.file), potArg.file, potArg.lengthUnit, ENERGY_TO_HARTREE[potArg.energyUnit]);
         potential = { kind: 'table', file: potArg.file, R: t.R, V: t.values };
       }
@@ -135,6 +145,28 @@ export function registerCia(program: Command, ctx: CommandContext): void {
     });
 }
 
+/**
+ * Temperatures the quantum pair sums are built for, kelvin: below 1 K the partial-wave and bound-state sums need
+ * energy resolutions beyond the solver's grids, above 2e4 K the number of partial waves and the radial grid grow
+ * past what a command should allocate (30 000 K already takes ~10 s).
+ */
+export const CIA_TEMPERATURE_RANGE = { min: 1, max: 2e4 } as const;
+/** Atomic masses accepted, u (an electron-mass particle is 5.5e-4 u; the heaviest nuclei are below 300 u). */
+export const CIA_MASS_RANGE = { min: 1e-3, max: 1e4 } as const;
+
+function requireTemperature(T: number): number {
+  const { min, max } = CIA_TEMPERATURE_RANGE;
+  if (!(T >= min && T <= max)) throw new InputError('--temperature', `must be from ${min} K to ${max} K, got ${T}`);
+  return T;
+}
+
+/** Same name, or the same data under another name (a like pair either way). */
+function sameSpecies(A: Species, B: Species): boolean {
+  if (A.name === B.name) return true;
+  const strip = (s: Species) => JSON.stringify({ ...s, name: undefined, source: undefined });
+  return strip(A) === strip(B);
+}
+
 /** --masses MA,MB, or the standard atomic weights of built-in atoms. */
 function resolveMasses(text: string | undefined, names: [string, string]): { values: [number, number]; source: string } {
   if (text !== undefined) {
@@ -142,7 +174,8 @@ function resolveMasses(text: string | undefined, names: [string, string]): { val
     if (parts.length !== 2) throw new InputError('--masses', `must be MA,MB in u, got ${JSON.stringify(text)}`);
     const values = parts.map((p, i) => {
       const m = Number(p.trim());
-      if (!(m > 0) || !Number.isFinite(m) || p.trim() === '') throw new InputError('--masses', `${i === 0 ? 'MA' : 'MB'} must be a finite mass > 0 (u), got ${JSON.stringify(p)}`);
+      const { min, max } = CIA_MASS_RANGE;
+      if (!(m >= min && m <= max) || p.trim() === '') throw new InputError('--masses', `${i === 0 ? 'MA' : 'MB'} must be a mass from ${min} u to ${max} u, got ${JSON.stringify(p)}`);
       return m;
     }) as [number, number];
     return { values, source: 'given by the user' };

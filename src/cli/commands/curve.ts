@@ -16,6 +16,7 @@ import { curveData, curveToCsv, curveToJson, curveToText, type CurveCoefficients
 import { curveFigure } from '../../report/svg/curve-figure.js';
 import { integerIn, loadSpeciesFile, oneOf, positiveNumber, resolveAll, SPECIES_TOKEN_HELP } from '../common.js';
 import { addSharedOptions, chooseFormat, emitOutput, jsonText, notice, type OutputFlags } from '../shared-options.js';
+import { distanceRange } from '../distance-range.js';
 import { builtinSpecies } from '../../model/builtin-species.js';
 import type { EnergyUnit } from '../../model/units.js';
 import type { CommandContext } from '../context.js';
@@ -100,7 +101,7 @@ export function registerCurve(program: Command, ctx: CommandContext): void {
         'and list mu_A,z, mu_B,z, their sum and the interaction energy beside the asymptotic series (the dipole through ' +
         'D9/R^9, the energy through C8/R^8, first-order terms of anisotropic centres included) and exact ÷ series − 1. ' +
         'The default --order makes every printed term complete; a lower one flags the columns it gets wrong. Points the basis cannot resolve are flagged UNTRUSTED with the reason (exit code 3).\n\n' +
-        `Each of A, B is ${SPECIES_TOKEN_HELP}; the exact solution takes Drude oscillators (for the atoms: H-qdo, He … Xe).`,
+        `Each of A, B is ${SPECIES_TOKEN_HELP}; the exact solution takes Drude oscillators (for the atoms: H-qdo, He-qdo … Xe-qdo).`,
     )
     .argument('<A>', 'species at the origin')
     .argument('<B>', 'species at +R on z')
@@ -119,9 +120,7 @@ export function registerCurve(program: Command, ctx: CommandContext): void {
     // higher multipole terms bring the escape barrier closer: from order 4 on, start at 4 widths instead of 3
     const widths = order >= 4 ? 4 : 3;
     const defaultFrom = Number(Math.max(widths * (width(A) + width(B)), 1.5 * catastropheDistance(A, B)).toPrecision(2));
-    const from = flags.from !== undefined ? toBohr(flags.from, flags.length) : defaultFrom;
-    const to = flags.to !== undefined ? toBohr(flags.to, flags.length) : 5 * from;
-    if (!(to > from)) throw new InputError('--to', `must be larger than --from (${flags.from ?? `${defaultFrom} bohr`}), got ${flags.to ?? `${to} bohr`}`);
+    const { from, to } = distanceRange(flags, defaultFrom);
     if (flags.svg !== undefined && flags.out !== undefined && flags.svg === flags.out) throw new InputError('--svg', 'names the same file as --out');
     const R = separationGrid(from, to, flags.points, flags.spacing);
     const curve = exactCurve(A, B, R, { order, tolerance: flags.basisTol, maxQuanta: flags.totalQuanta });

@@ -4,15 +4,18 @@ import { densityChange, type DensityMap } from '../../engines/exact/density.js';
 import { exactSolver } from '../../engines/exact/exact-solver.js';
 import { defaultExactOrder, orderCompleteness, sphericalPair } from '../../engines/exact/series-terms.js';
 import type { DrudeSpecies } from '../../model/drude.js';
-import { bohrToAngstrom } from '../../model/units.js';
+import { bohrToAngstrom, type EnergyUnit } from '../../model/units.js';
 import { sig, sigDigits } from '../../report/format.js';
 import { InputError } from '../../model/errors.js';
 import { addSharedOptions, chooseFormat, emitOutput, jsonText, notice } from '../shared-options.js';
-import { unitName } from '../../report/curve-report.js';
+import { reportUnits, unitName } from '../../report/curve-report.js';
 import { densityFigure, type DensityPanel } from '../../report/svg/density-figure.js';
 import { integerIn, positiveNumber, SPECIES_TOKEN_HELP } from '../common.js';
 import type { CommandContext } from '../context.js';
 import { exactOptions, exactPair, toBohr, type ExactFlags } from './curve.js';
+import { computePair } from '../../engines/pair.js';
+import { pairSpeciesWarnings } from '../../engines/capabilities.js';
+import { accuracyStatementLine, accuracyToJson } from '../../report/accuracy-report.js';
 import { EXIT } from '../exit-codes.js';
 
 interface DensityFlags extends ExactFlags {
@@ -20,6 +23,8 @@ interface DensityFlags extends ExactFlags {
   svg?: string;
   grid: number;
   digits: number;
+  units: 'atomic' | 'si';
+  energyUnit: EnergyUnit;
 }
 
 /** Largest gain and loss of a map and where they are (bohr, relative to the centre). */
@@ -42,7 +47,8 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
       'Solve the pair at separation R (A at the origin, B at +R on z) and draw, for each centre, the change of its ' +
         'Drude-particle density (interacting minus isolated ground state) in the plane containing the axis: ' +
         'one colour family where the particle gains density, another where it loses it, both panels on one shared scale. ' +
-        'Prints a summary; --csv and --json export the grids (--json with the summary).\n\n' +
+        'Prints a summary; --csv and --json export the grids (--json with the summary). --units si adds the dipoles in ' +
+        'debye and the interaction energy in --energy-unit (the densities stay in --length units).\n\n' +
         `Each of A, B is ${SPECIES_TOKEN_HELP}.`,
     )
     .argument('<A>', 'species at the origin')
@@ -51,7 +57,7 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
     .option('--svg <file>', 'write the figure to FILE')
     .option('--grid <n>', 'grid points per side of each map', integerIn(41, 401), 161);
   exactOptions(cmd);
-  addSharedOptions(cmd, ['digits', 'csv', 'json', 'pretty', 'out', 'force', 'quiet']);
+  addSharedOptions(cmd, ['units', 'energyUnit', 'digits', 'csv', 'json', 'pretty', 'out', 'force', 'quiet']);
   cmd.action((a: string, b: string, flags: DensityFlags) => {
     const format = chooseFormat(flags, ['text', 'csv', 'json']);
     if (flags.svg !== undefined && flags.svg === flags.out) throw new InputError('--svg', 'names the same file as --out');
@@ -61,6 +67,9 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
     const p = state.point;
     // a user-chosen order below the default: say what the dipoles and energy printed here lack
     const orderNotes = orderCompleteness(state.model.order, sphericalPair(A, B)).notes;
+    // what the numbers rest on, as `pair` and `curve` say it (MODEL: a fitted QDO's response rests on the model's B)
+    const accuracy = computePair(A, B, { routes: ['perturbation'], maxEnergyPower: 6 }).accuracy;
+    const modelWarnings = [...pairSpeciesWarnings(A, B), ...accuracy.warnings];
     const unit = unitName(flags.length);
     const len = (x: number) => (flags.length === 'bohr' ? x : bohrToAngstrom(x));
     const maps = (['a', 'b'] as const).map((c) => {
@@ -83,9 +92,15 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
       };
     }) as [DensityPanel, DensityPanel];
     const status = p.trusted ? '' : `UNTRUSTED: ${p.reasons.join('; ')}`;
+    // --units si: dipoles in debye, the energy in --energy-unit (CODATA 2018, the conversions of curve)
+    const u = reportUnits({ units: flags.units, energyUnit: flags.energyUnit });
+    const siLine = (f: (x: number) => string, mu: string, muB: string) =>
+      `SI (CODATA 2018): ${mu} = ${f(u.mu(p.muA))} D, ${muB} = ${f(u.mu(p.muB))} D, E_int = ${f(u.e(p.energy))} ${u.eText}`;
     const footer = [
       `Exact ground state, multipole order ${state.model.order}: basis ${p.quanta} quanta, dimension ${p.dimension} (${p.fullDimension} without the L_{z} = 0 and mirror reduction).`,
-      `Induced dipoles μ_{A,z} = ${sig(p.muA, 5)} e a_{0}, μ_{B,z} = ${sig(p.muB, 5)} e a_{0}; interaction energy ${sig(p.energy, 5)} E_{h}. Dotted: half maximum of the isolated density.`,
+      u.si
+        ? `Induced dipoles μ_{A,z} = ${sig(u.mu(p.muA), 5)} D, μ_{B,z} = ${sig(u.mu(p.muB), 5)} D; interaction energy ${sig(u.e(p.energy), 5)} ${u.eText.replace('^-1', '^{-1}')}. Dotted: half maximum of the isolated density.`
+        : `Induced dipoles μ_{A,z} = ${sig(p.muA, 5)} e a_{0}, μ_{B,z} = ${sig(p.muB, 5)} e a_{0}; interaction energy ${sig(p.energy, 5)} E_{h}. Dotted: half maximum of the isolated density.`,
       ...(status ? [status.length > 150 ? status.slice(0, 147) + '…' : status] : []),
       ...(orderNotes.length ? [`FLAGGED: multipole order ${state.model.order} is below the default; see the text report.`] : []),
     ];
@@ -116,7 +131,10 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
       converged: p.converged,
       trusted: p.trusted,
       reasons: p.reasons,
+      ...(u.si ? { si: { units: { dipole: 'debye', energy: flags.energyUnit, constants: 'CODATA 2018' }, muA: u.mu(p.muA), muB: u.mu(p.muB), energy: u.e(p.energy) } } : {}),
       ...(flags.svg !== undefined ? { svg: flags.svg } : {}),
+      accuracy: accuracyToJson(accuracy),
+      warnings: [...orderNotes, ...modelWarnings],
     };
     let text: string;
     if (format === 'json') {
@@ -126,6 +144,9 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
       const lines = [
         `# dispole: change of the Drude-particle density, ${A.name} – ${B.name} at ${separation}, plane y = 0; x across and z along the axis, relative to each centre`,
         `# trusted: ${p.trusted}${p.trusted ? '' : ` (${p.reasons.join('; ')})`}`,
+        `# ${accuracyStatementLine(accuracy, A.name, B.name)}`,
+        ...modelWarnings.map((w) => `# warning: ${w}`),
+        ...(u.si ? [`# ${siLine(String, 'mu_A,z', 'mu_B,z')}`] : []),
         `centre,x_${flags.length},z_${flags.length},delta_rho_${densityUnit.replace('^', '')}`,
       ];
       for (const d of panels)
@@ -134,11 +155,13 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
     } else {
       const f = (x: number) => sigDigits(x, flags.digits);
       const lines = [`Pair ${A.name} – ${B.name} at ${separation}: exact ground state through multipole order ${state.model.order}`, `  basis ${p.quanta} quanta, dimension ${p.dimension} (${p.fullDimension} unreduced), residual ${sigDigits(p.residual, 2, 'exponent')} Eh`, `  mu_A,z = ${f(p.muA)} e a0, mu_B,z = ${f(p.muB)} e a0, E_int = ${f(p.energy)} Eh`];
+      if (u.si) lines.push(`  ${siLine(f, 'mu_A,z', 'mu_B,z')}`);
       for (const [k, e] of [['A', summary.densityChange.a], ['B', summary.densityChange.b]] as const)
         lines.push(`  ${k}: largest gain ${f(e.gain.value)} a0^-3 at (x, z) = (${f(e.gain.x)}, ${f(e.gain.z)}) bohr, largest loss ${f(e.loss.value)} a0^-3 at (${f(e.loss.x)}, ${f(e.loss.z)}) bohr; isolated peak ${f(e.isolatedPeak)} a0^-3`);
       if (flags.svg !== undefined) lines.push(`  wrote ${flags.svg}`);
       if (!p.trusted) lines.push(`UNTRUSTED: ${p.reasons.join('; ')}`);
-      for (const n of orderNotes) lines.push(`warning: ${n}`);
+      lines.push(accuracyStatementLine(accuracy, A.name, B.name));
+      for (const n of [...orderNotes, ...modelWarnings]) lines.push(`warning: ${n}`);
       text = lines.join('\n') + '\n';
     }
     emitOutput(ctx, flags, text, 'the density summary');

@@ -3,6 +3,7 @@ import type { Command } from 'commander';
 import { DEFAULT_QUANTITIES, defaultQuantities, deriveQuantities, parseQuantityName, SYMBOLIC_QUANTITIES, type VariableSet } from '../../engines/symbolic/derive.js';
 import type { PairLayout } from '../../engines/symbolic/symbols.js';
 import { derivedToJson, derivedToText } from '../../report/symbolic-report.js';
+import { InputError } from '../../model/errors.js';
 import { oneOf } from '../common.js';
 import type { CommandContext } from '../context.js';
 import { deriveSurfaceQuantities, parseSurfaceQuantity, SURFACE_QUANTITIES } from '../../engines/symbolic/symbolic-surface.js';
@@ -44,6 +45,9 @@ export function registerDerive(program: Command, ctx: CommandContext): void {
   cmd.action((tokens: string[], flags: DeriveFlags) => {
     const format = chooseFormat(flags, ['text', 'latex', 'json']);
     if (flags.surface) {
+      // one oscillator in q, m, w: a second species (--identical) and the alpha form have no meaning here
+      if (flags.identical) throw new InputError('--identical', 'has no meaning with --surface (one oscillator, already named q, m, w); leave it out');
+      if (flags.in !== 'mass') throw new InputError('--in', `--in ${flags.in} is not available with --surface: the surface closed forms are written in q, m, w (--in mass) only`);
       const words = tokens.flatMap((t) => t.split(',')).map((t) => t.trim()).filter(Boolean);
       const names = words.length ? [...new Set(words.map((w) => parseSurfaceQuantity('quantities', w)))] : [...SURFACE_QUANTITIES];
       const anisotropic = Boolean(flags.anisotropic);

@@ -6,6 +6,7 @@ import { speciesAccuracy } from '../../engines/accuracy.js';
 import { describeSpecies, type Species } from '../../model/species.js';
 import { speciesKinds } from '../../model/species-kinds.js';
 import { speciesToJson } from '../../report/species-json.js';
+import { speciesToCsv } from '../../report/species-csv.js';
 import { textTable } from '../../report/format.js';
 import { loadSpeciesFile } from '../common.js';
 import { addSharedOptions, chooseFormat, emitOutput, jsonText, type OutputFlags } from '../shared-options.js';
@@ -17,6 +18,10 @@ function accuracyJson(s: Species) {
   return { level: a.level, quantities: a.quantities, statement: a.basis };
 }
 
+/** What the accuracy levels mean (text and CSV). */
+const LEVELS_TEXT =
+  'exact = no approximation beyond converged numerics (a QDO or data as given are exact for themselves); first-principles = a stated level of theory, no empirical input; rescaled = first-principles response rescaled to published static values; model = a stand-in whose D7 rests on a model B.';
+
 export function registerSpecies(program: Command, ctx: CommandContext): void {
   const cmd = program
     .command('species')
@@ -24,15 +29,21 @@ export function registerSpecies(program: Command, ctx: CommandContext): void {
     .description(
       'List every species a command accepts by name: the built-in ones (the invented demo set, hydrogen and the noble-gas atoms) ' +
         'with their parameters in atomic units, their source and what their numbers rest on, then the atom library with its ' +
-        'published values and the inline kinds. With --species FILE, the species of the file come first.',
+        'published values and the inline kinds. With --species FILE, the species of the file come first. ' +
+        '--json gives every species with its parameters and accuracy, --csv one row per species (name, kind, level, definition, source).',
     );
-  addSharedOptions(cmd, ['species', 'json', 'pretty', 'out', 'force', 'quiet']);
+  addSharedOptions(cmd, ['species', 'csv', 'json', 'pretty', 'out', 'force', 'quiet']);
   cmd.action((flags: OutputFlags & { species?: string[] }) => {
-    const format = chooseFormat(flags, ['text', 'json']);
+    const format = chooseFormat(flags, ['text', 'csv', 'json']);
     const file = loadSpeciesFile(ctx.io, flags.species);
     const all: Species[] = [...(file?.values() ?? []), ...builtinSpecies()];
     if (format === 'json') {
       emitOutput(ctx, flags, jsonText(all.map((s) => ({ ...speciesToJson(s), accuracy: accuracyJson(s) })), flags), 'the species list');
+      return;
+    }
+    if (format === 'csv') {
+      const rows = all.map((s) => ({ name: s.name, kind: s.kind, level: speciesAccuracy(s).level, definition: describeSpecies(s), source: s.source }));
+      emitOutput(ctx, flags, speciesToCsv(rows, LEVELS_TEXT), 'the species list');
       return;
     }
     // library atoms: the long per-value sources are listed once, under the library tables below
@@ -45,7 +56,7 @@ export function registerSpecies(program: Command, ctx: CommandContext): void {
     const rows = all.map((s) => [s.name, describeSpecies(s), shortSource(s), speciesAccuracy(s).level]);
     const out: string[] = [];
     out.push(textTable(['name', 'parameters (atomic units)', 'source', 'level'], rows, 'left') + '\n');
-    out.push('Levels: exact = no approximation beyond converged numerics (a QDO or data as given are exact for themselves); first-principles = a stated level of theory, no empirical input; rescaled = first-principles response rescaled to published static values; model = a stand-in whose D7 rests on a model B.\n');
+    out.push(`Levels: ${LEVELS_TEXT}\n`);
     out.push('\n' + atomLibraryText() + '\n');
     out.push('\n' + recommendedAtomsText() + '\n');
     out.push('\nInline kinds: ' + Object.entries(speciesKinds).map(([k, v]) => `${k} (${v.summary})`).join('; ') + '\n');

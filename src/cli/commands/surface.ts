@@ -13,7 +13,7 @@ import { integerIn, loadSpeciesFile, oneOf, positiveNumber, resolveAll, SPECIES_
 import type { CommandContext } from '../context.js';
 import { EXIT } from '../exit-codes.js';
 import { addSharedOptions, chooseFormat, emitOutput, jsonText, type OutputFlags } from '../shared-options.js';
-import { toBohr } from './curve.js';
+import { distanceRange } from '../distance-range.js';
 
 interface SurfaceFlags extends OutputFlags {
   surface: string;
@@ -34,6 +34,9 @@ interface SurfaceFlags extends OutputFlags {
   basisTol: number;
   totalQuanta: number;
 }
+
+/** Options that only shape the --exact curve (commander attribute names = option names here). */
+const EXACT_ONLY = ['from', 'to', 'points', 'spacing', 'order'] as const;
 
 export function registerSurface(program: Command, ctx: CommandContext): void {
   const cmd = program
@@ -56,8 +59,12 @@ export function registerSurface(program: Command, ctx: CommandContext): void {
     .option('--spacing <kind>', 'with --exact: grid spacing, log or linear', oneOf(['log', 'linear'] as const), 'log')
     .option('--order <n>', `with --exact: highest multipole order of the image potential (2…${MAX_SURFACE_ORDER})`, integerIn(2, MAX_SURFACE_ORDER), 4);
   addSharedOptions(cmd, ['species', 'units', 'digits', 'agreementTol', 'quadratureTol', 'length', 'basisTol', 'totalQuanta', 'json', 'pretty', 'out', 'force', 'quiet']);
-  cmd.action((a: string, flags: SurfaceFlags) => {
+  cmd.action((a: string, flags: SurfaceFlags, command: Command) => {
     const format = chooseFormat(flags, ['text', 'json']);
+    if (!flags.exact) {
+      const given = EXACT_ONLY.find((o) => command.getOptionValueSource(o) === 'cli');
+      if (given) throw new InputError(`--${given}`, 'applies with --exact only (the finite-Z solution); add --exact or leave it out');
+    }
     const surface = parseSurfaceSpec(flags.surface, '--surface', (path) => ctx.io.readFile(path));
     const normal = flags.normal !== undefined ? surfaceNormal(flags.normal, '--normal') : undefined;
     const [A] = resolveAll([a], loadSpeciesFile(ctx.io, flags.species));
@@ -75,9 +82,7 @@ export function registerSurface(program: Command, ctx: CommandContext): void {
       if (!factor.instantaneous) throw new InputError('--exact', 'the finite-Z solution needs an instantaneous image: --surface conductor or eps=VALUE');
       const width = Math.max(...A.w.map((w) => 1 / Math.sqrt(2 * A.m * w)));
       const defaultFrom = Number((4 * width).toPrecision(2));
-      const from = flags.from !== undefined ? toBohr(flags.from, flags.length) : defaultFrom;
-      const to = flags.to !== undefined ? toBohr(flags.to, flags.length) : 5 * from;
-      if (!(to > from)) throw new InputError('--to', `must be larger than --from (${flags.from ?? `${defaultFrom} bohr`}), got ${flags.to ?? `${to} bohr`}`);
+      const { from, to } = distanceRange(flags, defaultFrom);
       curve = surfaceExactCurve(A, separationGrid(from, to, flags.points, flags.spacing), {
         delta: factor.delta(0),
         order: flags.order,

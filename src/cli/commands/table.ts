@@ -108,7 +108,6 @@ export function registerTable(program: Command, ctx: CommandContext): void {
 function surfaceTableAction(ctx: CommandContext, flags: TableFlags, format: string, listed: Species[]): void {
   if (flags.pairs) throw new InputError('--pairs', 'cannot be combined with --surface (a surface table has one row per species)');
   if (flags.columns !== undefined) throw new InputError('--columns', 'does not apply to the surface column set (C3, C5, D4, spread, status, source)');
-  if (format === 'latex') throw new InputError('--latex', 'the surface column set is written as text, CSV, JSON or Markdown');
   if (listed.length === 0) throw new InputError('species', 'none given; name them (e.g. dispole table Quelon Virid --surface conductor) or give --species FILE');
   const surface = parseSurfaceSpec(flags.surface!, '--surface', (path) => ctx.io.readFile(path));
   const table = computeSurfaceTable(listed, surface, {
@@ -116,7 +115,7 @@ function surfaceTableAction(ctx: CommandContext, flags: TableFlags, format: stri
     agreement: flags.agreementTol,
     relTol: flags.quadratureTol,
   });
-  const text = renderSurfaceTable(table, format as 'text' | 'csv' | 'json' | 'markdown', { units: flags.units, digits: flags.digits });
+  const text = renderSurfaceTable(table, format as 'text' | 'csv' | 'json' | 'markdown' | 'latex', { units: flags.units, digits: flags.digits });
   emitOutput(ctx, flags, flags.pretty && format === 'json' ? jsonText(JSON.parse(text), flags) : text, `the surface table of ${listed.length} species`);
   const bad = table.rows.filter((r) => r.status === 'UNTRUSTED').length + table.uncomputed.length;
   if (bad > 0) ctx.exitCode = EXIT.untrusted;

@@ -51,26 +51,39 @@ function sphereGrid(): SphereGrid {
   const weight = new Float64Array(count), x = new Float64Array(count), y = new Float64Array(count), z = new Float64Array(count);
   const nh = (ANGULAR_L_MAX + 1) ** 2;
   const harmonics = Array.from({ length: nh }, () => new Float64Array(count));
-  let k = 0;
-  for (let i = 0; i < N_THETA; i++) {
+  // the normalisations N_lm and the azimuthal factors, once per (l, |m|) and per (φ_j, m) instead of per point
+  const norms = Array.from({ length: ANGULAR_L_MAX + 1 }, (_, l) =>
+    Array.from({ length: l + 1 }, (_, am) => Math.sqrt(((2 * l + 1) / (4 * Math.PI)) * (factorial(l - am) / factorial(l + am)))),
+  );
+  const trigs = Array.from({ length: N_PHI }, (_, j) => {
+    const phi = (2 * Math.PI * j) / N_PHI;
+    return Array.from({ length: 2 * ANGULAR_L_MAX + 1 }, (_, mi) => {
+      const m = mi - ANGULAR_L_MAX, am = Math.abs(m);
+      return m === 0 ? 1 : m > 0 ? Math.SQRT2 * Math.cos(m * phi) : Math.SQRT2 * Math.sin(am * phi);
+    });
+  });
+  const legendre = Array.from({ length: N_THETA }, (_, i) => associatedLegendre(gl.nodes[i], ANGULAR_L_MAX));
+  for (let i = 0, k = 0; i < N_THETA; i++) {
     const ct = gl.nodes[i];
     const st = Math.sqrt(1 - ct * ct);
-    const P = associatedLegendre(ct, ANGULAR_L_MAX);
     for (let j = 0; j < N_PHI; j++, k++) {
       const phi = (2 * Math.PI * j) / N_PHI;
       weight[k] = (gl.weights[i] * 2 * Math.PI) / N_PHI;
       x[k] = st * Math.cos(phi);
       y[k] = st * Math.sin(phi);
       z[k] = ct;
-      for (let l = 0; l <= ANGULAR_L_MAX; l++)
-        for (let m = -l; m <= l; m++) {
-          const am = Math.abs(m);
-          const norm = Math.sqrt(((2 * l + 1) / (4 * Math.PI)) * (factorial(l - am) / factorial(l + am)));
-          const trig = m === 0 ? 1 : m > 0 ? Math.SQRT2 * Math.cos(m * phi) : Math.SQRT2 * Math.sin(am * phi);
-          harmonics[harmonicIndex(l, m)][k] = norm * P[l][am] * trig;
-        }
     }
   }
+  // one harmonic at a time over all points (point k = i·N_PHI + j): a short, tight loop per table row
+  for (let l = 0; l <= ANGULAR_L_MAX; l++)
+    for (let m = -l; m <= l; m++) {
+      const am = Math.abs(m), norm = norms[l][am], mi = m + ANGULAR_L_MAX;
+      const h = harmonics[harmonicIndex(l, m)];
+      for (let i = 0, k = 0; i < N_THETA; i++) {
+        const p = legendre[i][l][am];
+        for (let j = 0; j < N_PHI; j++, k++) h[k] = norm * p * trigs[j][mi];
+      }
+    }
   grid = { weight, x, y, z, harmonics };
   return grid;
 }

@@ -26,6 +26,12 @@ export interface CiaNumerics {
   pwTol: number;
   /** Relative error target per partial-wave energy integral (scaled by the running totals; the Numerov normalisation noise is ~1e-7). Default 1e-5. */
   relTol: number;
+  /**
+   * Continuum matching radius: where |V| falls below this × the lowest kT. Matching to free waves where V is
+   * still felt misnormalises the slow continuum waves by O(V/E); 1e-4 leaves ~1e-4 relative in the quantum M0
+   * of deep wells (1e-6: ~2e-5, at twice the grid). Default 1e-4.
+   */
+  matchPotentialKT: number;
   /** Largest partial wave; reaching it flags the result unconverged. Default 4000. */
   maxPartialWaves: number;
   /** Line shape: energy-integral panels × Gauss–Legendre nodes, and energy cut in kT. */
@@ -39,6 +45,7 @@ export const DEFAULT_CIA_NUMERICS: CiaNumerics = {
   energyCutKT: 40,
   pwTol: 1e-7,
   relTol: 1e-5,
+  matchPotentialKT: 1e-4,
   maxPartialWaves: 4000,
   spectrumPanels: 4,
   spectrumNodes: 5,
@@ -179,7 +186,7 @@ export function computeCia(input: CiaInput): CiaResult {
   }
   // matching radius: V negligible against the lowest kT
   let Rmatch = Rdip;
-  while (Rmatch < 200 && Math.abs(pot.derivatives(Rmatch)[0]) > 1e-4 * kTmin) Rmatch += 0.5;
+  while (Rmatch < 200 && Math.abs(pot.derivatives(Rmatch)[0]) > num.matchPotentialKT * kTmin) Rmatch += 0.5;
   Rmatch = Math.max(Rmatch, Rdip + 1);
   const Rfar = Rmatch * 1.5;
   const depth = pot.well?.depth ?? 0;
@@ -233,6 +240,17 @@ export function computeCia(input: CiaInput): CiaResult {
     };
     return out;
   });
+  // the ħ² (Wigner–Kirkwood) term is the first of a semiclassical series: once it is not small against the quantum
+  // value the series no longer holds (deep wells at low T, where bound pairs dominate); say so rather than let a
+  // negative or huge corrected moment stand beside the quantum one without comment
+  for (const tp of temps) {
+    const off = Math.max(Math.abs(tp.difference.wignerKirkwoodM0), Math.abs(tp.difference.wignerKirkwoodM1));
+    if (off > 0.1) {
+      warnings.push(
+        `at ${tp.T} K the Wigner–Kirkwood moments differ from the quantum ones by ${(100 * off).toPrecision(2)}%: the semiclassical ħ² expansion does not hold there (use the quantum moments; the classical ones are a limit, not an estimate)`,
+      );
+    }
+  }
 
   if (input.spectrum) {
     const { from, to, step } = input.spectrum;

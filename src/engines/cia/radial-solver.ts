@@ -154,19 +154,18 @@ export interface BoundState {
  * wave is trapped inside the well. Found like bound levels with the box wall at the barrier top (the Dirichlet
  * levels approach the resonance energies up to terms of order Γ); width by the WKB tunnelling formula
  * Γ ≈ (ΔE/2π) e^(−2∫κ dR) through the barrier, ΔE the level spacing (common practice; e.g. R. J. Le Roy,
- * R. B. Bernstein, J. Chem. Phys. 54, 5114 (1971)). u is normalised inside the barrier and zero beyond.
+ * R. B. Bernstein, J. Chem. Phys. 54, 5114 (1971)). Each level is refined with the box wall moved to the outer turning point (shift ~Γ instead of ~√(Γ ΔE)); u is normalised inside the barrier top and zero beyond.
  */
 export function quasiBoundStates(g: RadialGrid, l: number): BoundState[] {
   const n = g.R.length, L = l * (l + 1), m2 = 2 * g.mass;
   if (l === 0) return [];
   const veff = (i: number) => (g.twoMV[i] + L * g.invR2[i]) / m2;
-  const start = startIndex(g, l, 0);
-  let iw = start + 1;
-  for (let i = start + 1; i < n; i++) if (veff(i) < veff(iw)) iw = i;
-  let ib = iw;
-  for (let i = iw; i < n; i++) if (veff(i) > veff(ib)) ib = i;
+  const well = innerWell(g, l);
+  if (!well) return [];
+  const { iw, ib } = well;
   const top = veff(ib);
-  if (!(top > 0) || ib >= n - 2 || ib === iw) return [];
+  if (!(top > 0)) return [];
+  const start = startIndex(g, l, top);
   const work = new Float64Array(n);
   const nodesAt = (E: number) => numerovOutward(g, l, E, start, ib, work);
   const below = nodesAt(1e-300);
@@ -179,15 +178,32 @@ export function quasiBoundStates(g: RadialGrid, l: number): BoundState[] {
       if (nodesAt(mid) - below > v) hi = mid;
       else lo = mid;
     }
-    const E = 0.5 * (lo + hi);
+    let E = 0.5 * (lo + hi);
+    let iout = ib;
+    // the wall at the barrier top shifts the level by up to ~√(Γ ΔE); at the outer turning point only by ~Γ
+    while (iout < n - 1 && veff(iout) > E) iout++;
+    if (iout < n - 1) {
+      const nodesOut = (x: number) => numerovOutward(g, l, x, start, iout, work);
+      const belowOut = nodesOut(1e-300);
+      let a = 0, b = E;
+      for (let it = 0; it < 200 && b - a > 1e-14 * b; it++) {
+        const mid = 0.5 * (a + b);
+        if (nodesOut(mid) - belowOut > v) b = mid;
+        else a = mid;
+      }
+      E = 0.5 * (a + b);
+    }
+    // the trapped wave, normalised inside the barrier top (outward integration beyond it, under the barrier, is
+    // unstable; the tail left out is of relative order e^(−2∫κ) over the outer half of the barrier)
+    const wall = ib;
     const u = new Float64Array(n);
-    numerovOutward(g, l, E, start, ib, u);
+    numerovOutward(g, l, E, start, wall, u);
     let peak = 0;
-    for (let i = start; i <= ib; i++) peak = Math.max(peak, Math.abs(u[i]));
+    for (let i = start; i <= wall; i++) peak = Math.max(peak, Math.abs(u[i]));
     let norm = 0;
-    for (let i = start; i <= ib; i++) (u[i] /= peak), (norm += u[i] * u[i]);
+    for (let i = start; i <= wall; i++) (u[i] /= peak), (norm += u[i] * u[i]);
     norm = Math.sqrt(norm * g.h);
-    for (let i = start; i <= ib; i++) u[i] /= norm;
+    for (let i = start; i <= wall; i++) u[i] /= norm;
     // tunnelling integral through the barrier
     let theta = 0;
     for (let i = iw; i < n; i++) {
@@ -203,6 +219,37 @@ export function quasiBoundStates(g: RadialGrid, l: number): BoundState[] {
     out[v].width = (spacing / (2 * Math.PI)) * Math.exp(-2 * (out[v].width as number));
   }
   return out;
+}
+
+/**
+ * The inner well of V_eff = V + l(l+1)/(2mR²) seen from the repulsive wall: the first local minimum iw and the
+ * barrier top ib (the first local maximum after it), or null when V_eff has no such well on the grid. The well
+ * bottom may lie above zero energy (then every level in it is quasi-bound); a global minimum would miss those
+ * wells, since V_eff → 0⁺ at large R.
+ */
+export function innerWell(g: RadialGrid, l: number): { iw: number; ib: number } | null {
+  const n = g.R.length, L = l * (l + 1);
+  const f = (i: number) => g.twoMV[i] + L * g.invR2[i];
+  let iw = g.R[0] > 0 ? 0 : 1;
+  while (iw < n - 1 && !(f(iw + 1) >= f(iw))) iw++;
+  let ib = iw;
+  while (ib < n - 1 && !(f(ib + 1) <= f(ib))) ib++;
+  if (iw >= n - 2 || ib >= n - 2 || ib === iw) return null;
+  return { iw, ib };
+}
+
+/**
+ * The top of the inner well's barrier: energy V_eff(R_b) (Eh) and the barrier frequency ω_b = √(|V_eff''(R_b)|/m)
+ * (ħ = 1). Transmission through a parabolic barrier changes over energies ~ω_b/2π around its top
+ * (E. C. Kemble, Phys. Rev. 48, 549 (1935); quoted from memory), where barrier-top resonances sit.
+ */
+export function barrierTop(g: RadialGrid, l: number): { E: number; omega: number } | null {
+  const well = innerWell(g, l);
+  if (!well) return null;
+  const L = l * (l + 1), i = well.ib, f = (j: number) => g.twoMV[j] + L * g.invR2[j];
+  const curvature = Math.abs(f(i + 1) - 2 * f(i) + f(i - 1)) / (g.h * g.h); // |d²(2mV_eff)/dR²|
+  const E = f(i) / (2 * g.mass);
+  return E > 0 ? { E, omega: Math.sqrt(curvature / 2) / g.mass } : null;
 }
 
 /** All bound levels of angular momentum l on the grid (box boundary at the far end), lowest first. */
@@ -246,11 +293,15 @@ function boundWave(g: RadialGrid, l: number, E: number, start: number): Float64A
     w[i - 1] = (2 * w[i] * (1 + 5 * c * f(i)) - w[i + 1] * (1 - c * f(i + 1))) / (1 - c * f(i - 1));
     if (Math.abs(w[i - 1]) > 1e200) for (let k = i - 1; k < n; k++) w[k] *= 1e-200;
   }
-  const s = out / w[turn];
-  for (let i = turn + 1; i < n; i++) u[i] = w[i] * s;
+  // join in O(1) numbers: out and w[turn] may be ~1e-280 and ~1e+200, whose plain ratio underflows to 0
   let peak = 0;
+  for (let i = start; i <= turn; i++) peak = Math.max(peak, Math.abs(u[i]));
+  for (let i = start; i <= turn; i++) u[i] /= peak; // the raw values may be ~1e-280: square only after scaling
+  const joint = out / peak, wt = w[turn];
+  for (let i = turn + 1; i < n; i++) u[i] = (w[i] / wt) * joint;
+  peak = 0;
   for (let i = start; i < n; i++) peak = Math.max(peak, Math.abs(u[i]));
-  for (let i = start; i < n; i++) u[i] /= peak; // the raw values may be ~1e-280: square only after scaling
+  for (let i = start; i < n; i++) u[i] /= peak;
   let norm = 0;
   for (let i = start; i < n; i++) norm += u[i] * u[i];
   norm = Math.sqrt(norm * g.h);

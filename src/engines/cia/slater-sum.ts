@@ -17,9 +17,11 @@ import { adaptiveKronrod } from './gauss-kronrod.js';
 /** Quasi-bound levels narrower than this × the lowest kT (WKB estimate) are counted as discrete levels. */
 const NARROW = 1e-8;
 const PANELS = 4;
-/** Located resonances narrower than this × the lowest kT are discrete levels with a window of ±1000 Γ cut out. */
-const RESOLVE = 1e-5;
-import { boundStates, continuumState, quasiBoundStates, startIndex, type BoundState, type RadialGrid } from './radial-solver.js';
+/** Resonances narrower than this × the lowest kT are handed to the line shape as discrete levels (not to the moments). */
+const LINE_SHAPE_LEVEL = 1e-5;
+/** Half-width, in Γ, of the window around a located resonance integrated in the Breit–Wigner variable. */
+const WINDOW = 50;
+import { barrierTop, boundStates, continuumState, innerWell, quasiBoundStates, startIndex, type BoundState, type RadialGrid } from './radial-solver.js';
 
 export interface QuantumMoments {
   M0: number;
@@ -46,6 +48,7 @@ export interface SlaterSumResult {
   converged: boolean;
   /** Why not converged (or ''). */
   reason: string;
+  /** Bound and quasi-bound levels for the line shape (quasi-bound: Γ below 1e-5 of the lowest kT). */
   bound: BoundState[];
   /** Number of continuum solutions computed. */
   solves: number;
@@ -81,32 +84,40 @@ export function slaterSumMoments(g: RadialGrid, dip: { mu2: Float64Array; grad: 
   const originTerm = (u: Float64Array) => (g.R[0] === 0 ? h * dip.mu2[0] * (u[1] / g.R[1]) ** 2 : 0);
   for (; l <= options.maxL; l++) {
     const contrib = new Float64Array(dim);
-    // bound levels, and narrow quasi-bound levels (orbiting resonances) counted like bound ones: the energy
-    // integral cannot resolve a peak of width Γ ≪ kT, so its window [E_r − 1000Γ, E_r + 1000Γ] is cut out of it
+    // bound levels, and quasi-bound levels (orbiting resonances) narrower than NARROW kT counted like bound ones
+    // (no quadrature node lands within Γ of them); wider ones are integrated through in their Breit–Wigner variable.
+    // Missing a resonance leaves an error that does not fall with the mass (a floor under quantum − Wigner–Kirkwood).
     const levels: BoundState[] = boundDone ? [] : boundStates(g, l);
     if (!boundDone && levels.length === 0) boundDone = true;
-    const cuts: Array<[number, number]> = [];
+    const windows: Array<{ E: number; width: number; lo: number; hi: number }> = [];
     const marks: number[] = [];
     const start = startIndex(g, l, options.Ecut);
     if (!quasiDone) {
       const quasi = quasiBoundStates(g, l);
-      if (quasi.length === 0 && boundDone && l > 0) quasiDone = true;
+      if (quasi.length === 0 && boundDone && l > 0 && !innerWell(g, l)) quasiDone = true;
+      const barrier = barrierTop(g, l);
+      if (barrier) for (const x of [0, 1, 8]) marks.push(barrier.E - (x * barrier.omega) / (2 * Math.PI), barrier.E + (x * barrier.omega) / (2 * Math.PI));
       quasi.forEach((q, v) => {
-        if ((q.width ?? 0) < NARROW * kTmin) {
-          levels.push(q); // far too narrow for any energy grid: a discrete level (error O(Γ/kT))
+        // the resonance energy and width from the Breit–Wigner form of the trapped weight
+        const gap = Math.min(v > 0 ? q.E - quasi[v - 1].E : q.E, v + 1 < quasi.length ? quasi[v + 1].E - q.E : q.E) / 2;
+        const peak = locateResonance(g, l, q.E, Math.min(gap, 100 * (q.width ?? gap)), start, work, q.u);
+        const width = peak ? peak.width : (q.width ?? 0);
+        if (width < NARROW * kTmin) {
+          // far too narrow for any energy grid: a discrete level (error O(Γ/kT)); the quadrature nodes miss its peak
+          levels.push(peak ? { ...q, E: peak.E, width } : q);
           return;
         }
-        // locate the peak of the trapped-wave weight and its half-width, then give the integral breakpoints there
-        const gap = Math.min(v > 0 ? q.E - quasi[v - 1].E : q.E, v + 1 < quasi.length ? quasi[v + 1].E - q.E : q.E) / 3;
-        const peak = resonancePeak(g, l, q, Math.max(q.E - gap, 1e-300), q.E + gap, start, work);
-        if (peak.width < RESOLVE * kTmin) {
-          // narrow: the trapped state as a discrete level, its peak cut out of the energy integral
-          levels.push({ ...q, E: peak.E, width: peak.width });
-          cuts.push([Math.max(0, peak.E - 1000 * peak.width), peak.E + 1000 * peak.width]);
+        if (!peak) {
+          // no isolated Breit–Wigner peak (broad, near the barrier top): breakpoints at the WKB estimate
+          for (const x of [0.5, 2, 8]) marks.push(q.E - x * width, q.E + x * width);
           return;
         }
-        for (const x of [0.5, 2, 8, 32, 128]) marks.push(peak.E - x * peak.width, peak.E + x * peak.width);
-        marks.push(peak.E);
+        // a window of ±WINDOW Γ integrated in the Lorentzian's own variable, geometric breakpoints beyond it
+        const E = peak.E, half = Math.min(WINDOW * width, 0.5 * gap);
+        windows.push({ E, width, lo: Math.max(E - half, 0), hi: E + half });
+        // the line shape's fixed k grid cannot resolve it either: there it stays a discrete level
+        if (width < LINE_SHAPE_LEVEL * kTmin) bound.push({ ...q, E, width });
+        for (let x = 4 * half; x < gap; x *= 4) marks.push(E - x, E + x);
       });
     }
     for (const b of levels) {
@@ -139,27 +150,43 @@ export function slaterSumMoments(g: RadialGrid, dip: { mu2: Float64Array; grad: 
       }
       return y;
     };
-    // pieces of [0, kcut]: cut windows removed, broad resonances as breakpoints
+    // pieces of [0, kcut]: resonance windows apart (integrated in θ = atan(2(E − E_r)/Γ), where the
+    // Breit–Wigner peak is flat), geometric breakpoints around them
     const toK = (E: number) => Math.sqrt(2 * m * Math.max(E, 0));
     const edges = [0, kcut, ...marks.filter((E) => E > 0).map(toK).filter((k) => k < kcut)];
-    for (const [a, b] of cuts) edges.push(toK(a), Math.min(toK(b), kcut));
+    for (const w of windows) edges.push(toK(w.lo), Math.min(toK(w.hi), kcut));
     edges.sort((x, y) => x - y);
     const r = { value: new Float64Array(dim), converged: true };
-    for (let p = 0; p + 1 < edges.length; p++) {
-      const a = edges[p], b = edges[p + 1];
-      if (!(b > a) || cuts.some(([lo, hi]) => toK(lo) <= a && b <= toK(hi))) continue;
-      const piece = adaptiveKronrod(f, dim, a, b, {
-        panels: Math.max(1, Math.round((PANELS * (b - a)) / kcut)),
-        maxPanels: 400,
-        relTol: options.relTol,
-        scaleOf: (v) => {
-          const sc = new Float64Array(dim);
-          for (let k = 0; k < dim; k++) sc[k] = Math.max(Math.abs(totals[k] + contrib[k] + r.value[k] + v[k]), 1e-300);
-          return sc;
-        },
-      });
+    const scaleOf = (v: Float64Array) => {
+      const sc = new Float64Array(dim);
+      for (let k = 0; k < dim; k++) sc[k] = Math.max(Math.abs(totals[k] + contrib[k] + r.value[k] + v[k]), 1e-300);
+      return sc;
+    };
+    const add = (piece: { value: Float64Array; converged: boolean }) => {
       for (let k = 0; k < dim; k++) r.value[k] += piece.value[k];
       r.converged &&= piece.converged;
+    };
+    for (let p = 0; p + 1 < edges.length; p++) {
+      const a = edges[p], b = edges[p + 1];
+      if (!(b > a) || windows.some((w) => toK(w.lo) <= a && b <= toK(w.hi))) continue;
+      add(adaptiveKronrod(f, dim, a, b, { panels: Math.max(1, Math.round((PANELS * (b - a)) / kcut)), maxPanels: 400, relTol: options.relTol, scaleOf }));
+    }
+    const yTheta = new Float64Array(dim);
+    for (const w of windows) {
+      if (!(w.lo < options.Ecut)) continue;
+      const hi = Math.min(w.hi, options.Ecut);
+      // E = E_r + (Γ/2) tan θ, dk = (m/k) dE, dE = (Γ/2) sec²θ dθ
+      const fTheta = (theta: number): Float64Array | null => {
+        const E = w.E + 0.5 * w.width * Math.tan(theta);
+        const k = toK(E);
+        const y0 = f(k);
+        if (!y0) return null;
+        const jac = (m / k) * 0.5 * w.width / Math.cos(theta) ** 2;
+        for (let c = 0; c < dim; c++) yTheta[c] = y0[c] * jac;
+        return yTheta;
+      };
+      const t0 = Math.atan((2 * (w.lo - w.E)) / w.width), t1 = Math.atan((2 * (hi - w.E)) / w.width);
+      add(adaptiveKronrod(fTheta, dim, t0, t1, { panels: 4, maxPanels: 400, relTol: options.relTol, scaleOf }));
     }
     if (!r.converged) {
       reason = `the energy integral of partial wave l = ${l} did not reach its tolerance`;
@@ -188,37 +215,42 @@ export function slaterSumMoments(g: RadialGrid, dip: { mu2: Float64Array; grad: 
 }
 
 /**
- * The resonance of a quasi-bound level in the continuum: the energy where the trapped weight ∫ u² dR inside the
- * barrier (u the continuum wave of unit asymptotic amplitude) peaks, by golden-section search in [lo, hi], and the
- * full width at half maximum by bisection on either side.
+ * The resonance of a quasi-bound level in the continuum. Near an isolated resonance the trapped weight
+ * W(E) = ∫ u² dR inside the barrier (u the continuum wave of unit asymptotic amplitude) has the Breit–Wigner form
+ * W ∝ 1/((E − E_r)² + Γ²/4) (G. Breit, E. Wigner, Phys. Rev. 49, 519 (1936); quoted from memory), so 1/W is a
+ * parabola in E: three values give E_r and Γ = 2√(min/curvature). The fit is repeated on a bracket shrinking
+ * towards ±2Γ (the box level `E0` with its wall at the barrier top is off by up to ~√(Γ ΔE)). Returns null when
+ * the fit does not settle (Γ below the solver's energy resolution, or no isolated peak).
  */
-function resonancePeak(g: RadialGrid, l: number, q: BoundState, lo: number, hi: number, start: number, work: Float64Array): { E: number; width: number } {
-  let ib = q.start;
-  for (let i = q.start; i < q.u.length; i++) if (q.u[i] !== 0) ib = i;
-  const inside = (E: number) => {
+export function locateResonance(g: RadialGrid, l: number, E0: number, gap: number, start: number, work: Float64Array, trapped: Float64Array): { E: number; width: number } | null {
+  let ib = start;
+  for (let i = start; i < trapped.length; i++) if (trapped[i] !== 0) ib = i;
+  const inv = (E: number) => {
     const s = continuumState(g, l, E, start, work);
-    if (!s) return 0;
+    if (!s) return Infinity;
     let t = 0;
     for (let i = start; i <= ib; i++) t += work[i] * work[i];
-    return t;
+    return 1 / t;
   };
-  const gr = (Math.sqrt(5) - 1) / 2;
-  let a = lo, b = hi;
-  let x1 = b - gr * (b - a), x2 = a + gr * (b - a), f1 = inside(x1), f2 = inside(x2);
-  for (let it = 0; it < 80 && b - a > 1e-14 * b; it++) {
-    if (f1 > f2) (b = x2), (x2 = x1), (f2 = f1), (x1 = b - gr * (b - a)), (f1 = inside(x1));
-    else (a = x1), (x1 = x2), (f1 = f2), (x2 = a + gr * (b - a)), (f2 = inside(x2));
-  }
-  const E = 0.5 * (a + b), top = inside(E);
-  const half = (from: number, to: number) => {
-    let p = from, r = to;
-    for (let it = 0; it < 60 && Math.abs(r - p) > 1e-14 * Math.abs(E); it++) {
-      const mid = 0.5 * (p + r);
-      if (inside(mid) > top / 2) p = mid;
-      else r = mid;
+  let E = E0, d = Math.min(gap, E0) / 8;
+  for (let it = 0; it < 60; it++) {
+    if (!(d > 1e-13 * E)) return null;
+    const ym = inv(E - d), y0 = inv(E), yp = inv(E + d);
+    const a = (yp + ym - 2 * y0) / (2 * d * d), b = (yp - ym) / (2 * d);
+    if (!(a > 0) || !Number.isFinite(a)) {
+      d /= 4;
+      continue;
     }
-    return 0.5 * (p + r);
-  };
-  const width = Math.max(half(E, hi) - half(E, lo), 1e-14 * E);
-  return { E, width };
+    const x = -b / (2 * a), min = y0 - (b * b) / (4 * a);
+    if (Math.abs(x) > 4 * d) {
+      // outside the bracket: move towards the vertex, keep the size
+      E = Math.max(E + Math.sign(x) * 2 * d, 0.5 * E);
+      continue;
+    }
+    E += x;
+    const width = min > 0 ? 2 * Math.sqrt(min / a) : 0;
+    if (width > 0 && d <= 4 * width && Math.abs(x) <= 1e-3 * width) return { E, width };
+    d = Math.max(Math.min(d / 4, width > 0 ? 2 * width : d / 4), 2 * Math.abs(x), 1e-13 * E);
+  }
+  return null;
 }

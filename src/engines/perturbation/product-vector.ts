@@ -135,50 +135,45 @@ export function reducedResolvent(v: ProductVector, A: LocalSpace, B: LocalSpace)
 }
 
 /**
- * Read-only view of a product vector for fast lookups by (iA, iB): the same open addressing on typed arrays as the
- * accumulator above, so a lookup hashes two small integers instead of a heap number key (keys ≥ 2^31 are not small
- * integers for a Map). Built once per vector and cached (vectors are not mutated after they are made).
+ * Read-only view of a product vector by rows: for each A state present, the B amplitudes as a dense typed array
+ * (B indices of the spaces used here are small: a few hundred at most), so the inner sums over B states of the
+ * matrix elements below read an array instead of hashing a key. Built once per vector and cached (vectors are not
+ * mutated after they are made).
  */
-class VectorLookup {
-  private readonly keys: Float64Array;
-  private readonly values: Float64Array;
-  private readonly used: Uint8Array;
-  private readonly mask: number;
+class RowView {
+  readonly rows = new Map<number, Float64Array>();
+  readonly width: number;
 
   constructor(v: ProductVector) {
-    let size = 16;
-    while (size < 2 * v.size) size *= 2;
-    this.keys = new Float64Array(size);
-    this.values = new Float64Array(size);
-    this.used = new Uint8Array(size);
-    this.mask = size - 1;
+    let width = 0;
+    for (const key of v.keys()) width = Math.max(width, (key % STRIDE) + 1);
+    this.width = width;
     for (const [key, x] of v) {
       const iB = key % STRIDE;
-      let slot = hashSlot((key - iB) / STRIDE, iB, this.mask);
-      while (this.used[slot]) slot = (slot + 1) & this.mask;
-      this.used[slot] = 1;
-      this.keys[slot] = key;
-      this.values[slot] = x;
+      const iA = (key - iB) / STRIDE;
+      let row = this.rows.get(iA);
+      if (!row) this.rows.set(iA, (row = new Float64Array(width)));
+      row[iB] = x;
     }
-  }
-
-  /** The entry of |iA iB>, 0 where absent. */
-  get(iA: number, iB: number): number {
-    const key = iA * STRIDE + iB;
-    let slot = hashSlot(iA, iB, this.mask);
-    while (this.used[slot]) {
-      if (this.keys[slot] === key) return this.values[slot];
-      slot = (slot + 1) & this.mask;
-    }
-    return 0;
   }
 }
 
-const lookups = new WeakMap<ProductVector, VectorLookup>();
-function lookupOf(v: ProductVector): VectorLookup {
-  let l = lookups.get(v);
-  if (!l) lookups.set(v, (l = new VectorLookup(v)));
-  return l;
+const views = new WeakMap<ProductVector, RowView>();
+function rowsOf(v: ProductVector): RowView {
+  let r = views.get(v);
+  if (!r) views.set(v, (r = new RowView(v)));
+  return r;
+}
+
+/** Σ_k amps[k] · row[states[k]] (entries beyond the row's width are absent: 0). */
+function rowSum(row: Float64Array, states: readonly number[], amps: readonly number[]): number {
+  let s = 0;
+  const width = row.length;
+  for (let k = 0; k < states.length; k++) {
+    const i = states[k];
+    if (i < width) s += amps[k] * row[i];
+  }
+  return s;
 }
 
 /**
@@ -186,7 +181,7 @@ function lookupOf(v: ProductVector): VectorLookup {
  * (each contribution is multiplied by w's entry as it is made; the same products, summed in another order).
  */
 export function couplingDot(terms: readonly CouplingTerm[], v: ProductVector, w: ProductVector, A: LocalSpace, B: LocalSpace): number {
-  const W = lookupOf(w);
+  const W = rowsOf(w);
   let s = 0;
   for (const [key, amp] of v) {
     const iB = key % STRIDE;
@@ -196,10 +191,8 @@ export function couplingDot(terms: readonly CouplingTerm[], v: ProductVector, w:
       const b = B.applyMoment(t.pB, iB);
       const c = t.c * amp;
       for (let j = 0; j < a.states.length; j++) {
-        const target = a.states[j];
-        let inner = 0;
-        for (let k = 0; k < b.states.length; k++) inner += b.amps[k] * W.get(target, b.states[k]);
-        s += c * a.amps[j] * inner;
+        const row = W.rows.get(a.states[j]);
+        if (row) s += c * a.amps[j] * rowSum(row, b.states, b.amps);
       }
     }
   }
@@ -208,18 +201,24 @@ export function couplingDot(terms: readonly CouplingTerm[], v: ProductVector, w:
 
 /** <w|M_p|v> with M_p acting on centre `on`: dot(w, applyLocal(p, on, v, A, B)) without building M_p|v>. */
 export function localDot(p: Monomial, on: 'a' | 'b', w: ProductVector, v: ProductVector, A: LocalSpace, B: LocalSpace): number {
-  const W = lookupOf(w);
+  const W = rowsOf(w);
   let s = 0;
   for (const [key, amp] of v) {
     const iB = key % STRIDE;
     const iA = (key - iB) / STRIDE;
     let inner = 0;
     if (on === 'a') {
+      if (iB >= W.width) continue;
       const e = A.applyMoment(p, iA);
-      for (let j = 0; j < e.states.length; j++) inner += e.amps[j] * W.get(e.states[j], iB);
+      for (let j = 0; j < e.states.length; j++) {
+        const row = W.rows.get(e.states[j]);
+        if (row) inner += e.amps[j] * row[iB];
+      }
     } else {
+      const row = W.rows.get(iA);
+      if (!row) continue;
       const e = B.applyMoment(p, iB);
-      for (let j = 0; j < e.states.length; j++) inner += e.amps[j] * W.get(iA, e.states[j]);
+      inner = rowSum(row, e.states, e.amps);
     }
     s += amp * inner;
   }

@@ -40,7 +40,7 @@ export function imageFactor(s: SurfaceSpec): ImageFactor {
           if (den === 0) return 1; // a Drude term at u = 0: S = ∞
           S += t.wp2 / den;
         }
-        return S / (2 + S);
+        return 1 / (1 + 2 / S); // = S/(2 + S), and 1 (not NaN) if S overflows
       };
       const scale = Math.max(...s.terms.map((t) => Math.max(t.wp, t.w0))) / Math.SQRT2;
       return { delta, instantaneous: false, scale, notes: [] };

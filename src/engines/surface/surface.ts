@@ -78,7 +78,8 @@ const rel = (x: number, ref: number, scale = Math.abs(ref)) => (scale === 0 ? Ma
 
 function surfaceSpread(results: readonly SurfaceRouteResult[]): SurfaceSpread {
   const ref = results[0];
-  const s: SurfaceSpread = { C3: 0, D4: 0, D4vector: 0, max: 0 };
+  // C5 like C3: the largest relative difference from the reference (0 with one route); absent only when the reference has no C5
+  const s: SurfaceSpread = { C3: 0, ...(ref.C5 !== undefined ? { C5: 0 } : {}), D4: 0, D4vector: 0, max: 0 };
   const norm = Math.hypot(...ref.D4vector);
   for (const r of results.slice(1)) {
     s.C3 = Math.max(s.C3, rel(r.C3, ref.C3));
@@ -130,6 +131,12 @@ export function computeSurface(species: Species, surface: SurfaceSpec, options: 
   if (results.length < 2) warnings.push('only one route could run: no cross-check');
   if (speciesWarnings(species).length > 0) {
     warnings.push(`D4 is APPROXIMATE: ${species.name} has only a static B, so B(0; iu, −iu) ≈ B·alpha(iu)/alpha(0)`);
+  }
+  if (species.kind === 'tdhf' && species.charge !== 0) {
+    // classical image of a point charge (common practice; J. D. Jackson, Classical Electrodynamics, 3rd ed. 1999, §2.1)
+    warnings.push(
+      `${species.name} is an ion (charge ${species.charge > 0 ? '+' : ''}${species.charge}): only the dispersion parts (C3, C5, D4) are given; the image-charge energy −q²/(4Z) (times the static image factor for a dielectric) and the dipole alpha·q/(4Z²) induced by the image field dominate at long range and are NOT included`,
+    );
   }
   if (options.routes) for (const s of skipped) warnings.push(`route ${s.name} skipped: ${s.reason}`);
   const ref = results[0];

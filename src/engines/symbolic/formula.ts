@@ -7,6 +7,7 @@ import { mathjsModule } from '../../lazy-modules.js';
 import Fraction from 'fraction.js';
 import type { ConstantNode, FunctionNode, MathNode, OperatorNode, ParenthesisNode, SymbolNode } from 'mathjs';
 import { InputError } from '../../model/errors.js';
+import { formulaSyntaxError } from './formula-syntax.js';
 import type { PolyTerm } from './polynomial.js';
 import { AlgebraTooCostly, rfAdd, rfConstant, rfDiv, rfMonomial, rfMul, rfPow, rfRoot, type RationalFunction } from './rational-function.js';
 import { zeroExponents, type SymbolTable } from './symbols.js';
@@ -53,6 +54,9 @@ let parser: ((text: string) => MathNode) | undefined;
  * other commands should not pay. Synchronous, through the package's CommonJS entry point.
  */
 function parseMath(text: string): MathNode {
+  // a syntax error in the common small language is reported (in mathjs's words) before mathjs is loaded
+  const early = formulaSyntaxError(text);
+  if (early) throw Object.assign(new SyntaxError(early.message), { char: early.char });
   parser ??= mathjsModule().parse;
   return parser(text);
 }

@@ -5,6 +5,7 @@
  * a single route a double dagger (‡). The provenance and the warnings are LaTeX comments above the float.
  */
 import type { CoefficientTable } from '../../engines/table.js';
+import { oneLine } from '../format.js';
 import { LATEX_NAME } from '../latex-names.js';
 import { collectWarnings, humanTable, NOT_COMPUTED, untrustedSummary, type HumanTableOptions } from './columns.js';
 import { provenanceLines, provenanceOf } from './provenance.js';
@@ -56,57 +57,94 @@ export function latexNumber(text: string): string {
   return `$${sign}${mantissa}${exponent === undefined || Number(exponent) === 0 ? '' : `\\times10^{${Number(exponent)}}`}$`;
 }
 
-/** Marks after the pair label: dagger UNTRUSTED, double dagger single route, section sign model, pilcrow not computed. */
-const MARK: Record<string, string> = { UNTRUSTED: '$^{\\dagger}$', unchecked: '$^{\\ddagger}$', model: '$^{\\S}$', [NOT_COMPUTED]: '$^{\\P}$' };
+/** Marks after the row label: dagger UNTRUSTED, double dagger single route, section sign model, pilcrow not computed. */
+export const LATEX_STATUS_MARK: Record<string, string> = { UNTRUSTED: '$^{\\dagger}$', unchecked: '$^{\\ddagger}$', model: '$^{\\S}$', [NOT_COMPUTED]: '$^{\\P}$' };
+const MARK = LATEX_STATUS_MARK;
 
-export function tableToLatex(table: CoefficientTable, options: HumanTableOptions): string {
-  const p = provenanceOf(table, options.units);
-  const { columns, rows, sources: list, statuses } = humanTable(table, options, 'latex');
-  const out: string[] = [];
-  out.push(...provenanceLines(p).map((l) => `% ${l}`));
-  out.push(`% ${untrustedSummary(table)}`);
-  for (const w of collectWarnings(table)) out.push(`% warning: ${w.text} — ${w.pairs.join(', ')}`);
-  out.push('% requires \\usepackage{booktabs}');
+/** The parts of one booktabs table float (every LaTeX table of dispole is written by {@link booktabsFloat}). */
+export interface BooktabsFloat {
+  /** Lines above the float, written as LaTeX comments (provenance, warnings). */
+  comments: string[];
+  /** Caption and label (LaTeX). */
+  caption: string;
+  label: string;
+  /** Column specification, e.g. "lrrc". */
+  spec: string;
+  /** Header rows and body rows, cells already LaTeX. */
+  header: string[][];
+  rows: string[][];
+  /** Notes under the table (LaTeX), one paragraph each. */
+  notes: string[];
+}
 
-  // the status is shown as a mark after the pair label, so it gets no column of its own
-  const shown = columns.map((c, i) => ({ c, i })).filter(({ c }) => c.key !== 'status');
-  const spec = `l${shown.map(({ c }) => (c.key === 'sources' ? 'c' : 'r')).join('')}`;
-  const title = (key: string) => (key === 'spread' ? 'Spread' : key === 'sources' ? 'Sources' : key);
-  const names = ['Pair', ...shown.map(({ c }) => (c.quantity ? `$${c.quantity.latexName}$` : title(c.key)))];
-  const units = ['', ...shown.map(({ c }) => (c.quantity ? `($${c.quantity.latexUnit}$)` : c.key === 'spread' ? '(rel.)' : ''))];
+/** A `table` float with a booktabs `tabular`, notes in a footnote-size paragraph below it. */
+export function booktabsFloat(t: BooktabsFloat): string {
   const row = (cells: string[]) => `    ${cells.join(' & ')} \\\\`;
-  const unitWords = options.units === 'atomic' ? 'atomic units' : 'SI units (CODATA 2018)';
-  out.push(
+  const out = [
+    ...t.comments.map((l) => `% ${oneLine(l)}`),
+    '% requires \\usepackage{booktabs}',
     '\\begin{table}',
     '  \\centering',
     '  \\small',
-    `  \\caption{Dispersion coefficients $C_6$, $C_8$ and dispersion-induced dipole coefficients in ${unitWords}` +
-      ` (A at the origin, B at $+R\\hat{z}$, $\\mu_{a,z} \\approx ${LATEX_NAME['D7.a']}/R^7$, $${LATEX_NAME['D7.total']} = ${LATEX_NAME['D7.a']} + ${LATEX_NAME['D7.b']}$, $E \\approx -C_6/R^6 - C_8/R^8$),` +
-      ` by the routes ${latexEscape(table.settings.routes.join(', '))}; spread: largest relative difference between the routes.}`,
-    '  \\label{tab:dispole-coefficients}',
-    `  \\begin{tabular}{${spec}}`,
+    `  \\caption{${t.caption}}`,
+    `  \\label{${t.label}}`,
+    `  \\begin{tabular}{${t.spec}}`,
     '    \\toprule',
-    row(names),
-    row(units),
+    ...t.header.map(row),
     '    \\midrule',
-  );
-  rows.forEach((cells, r) => {
-    const body = shown.map(({ c, i }) => (c.key === 'sources' ? latexEscape(cells[i + 1]) : latexNumber(cells[i + 1])));
-    out.push(row([latexEscape(cells[0]) + (MARK[statuses[r]] ?? ''), ...body]));
-  });
-  out.push('    \\bottomrule', '  \\end{tabular}');
-  const notes: string[] = list.sources.map((src, i) => `${latexEscape(`[${i + 1}]`)}~${latexEscape(src)}`);
-  const has = (status: string) => statuses.includes(status);
-  if (has('UNTRUSTED')) notes.push(`${MARK.UNTRUSTED}\\,UNTRUSTED: a route did not converge or the routes disagree (see the warnings in the comments above the table).`);
-  if (has('unchecked')) notes.push(`${MARK.unchecked}\\,Only one route could run: no cross-check.`);
-  if (has('model')) notes.push(`${MARK.model}\\,$D_{7}$ rests on a model or an approximate input (see the warnings in the comments above the table).`);
-  if (!allExact(table)) notes.push(`Levels: ${latexEscape(levelsSentence(table))}.`);
-  if (has(NOT_COMPUTED)) notes.push(`${MARK[NOT_COMPUTED]}\\,Not computed: no route can handle the pair (reason in the comments above the table).`);
-  if (notes.length) {
+    ...t.rows.map(row),
+    '    \\bottomrule',
+    '  \\end{tabular}',
+  ];
+  if (t.notes.length) {
     out.push('  \\par\\smallskip', '  {\\footnotesize\\raggedright');
-    out.push(...notes.map((n) => `  ${n}\\par`));
+    out.push(...t.notes.map((n) => `  ${n}\\par`));
     out.push('  }');
   }
   out.push('\\end{table}');
   return out.join('\n') + '\n';
+}
+
+/** The notes of the status marks that occur in `statuses` (UNTRUSTED, single route, model, not computed). */
+export function statusNotes(statuses: readonly string[], what: { item: string; levels?: string }): string[] {
+  const notes: string[] = [];
+  const has = (status: string) => statuses.includes(status);
+  if (has('UNTRUSTED')) notes.push(`${MARK.UNTRUSTED}\\,UNTRUSTED: a route did not converge or the routes disagree (see the warnings in the comments above the table).`);
+  if (has('unchecked')) notes.push(`${MARK.unchecked}\\,Only one route could run: no cross-check.`);
+  if (has('model')) notes.push(`${MARK.model}\\,$${LATEX_NAME['D7.total']}$ rests on a model or an approximate input (see the warnings in the comments above the table).`);
+  if (what.levels !== undefined) notes.push(`Levels: ${latexEscape(what.levels)}.`);
+  if (has(NOT_COMPUTED)) notes.push(`${MARK[NOT_COMPUTED]}\\,Not computed: no route can handle the ${what.item} (reason in the comments above the table).`);
+  return notes;
+}
+
+export function tableToLatex(table: CoefficientTable, options: HumanTableOptions): string {
+  const p = provenanceOf(table, options.units);
+  const { columns, rows, sources: list, statuses } = humanTable(table, options, 'latex');
+  const comments = [...provenanceLines(p), untrustedSummary(table), ...collectWarnings(table).map((w) => `warning: ${w.text} — ${w.pairs.join(', ')}`)];
+
+  // the status is shown as a mark after the pair label, so it gets no column of its own
+  const shown = columns.map((c, i) => ({ c, i })).filter(({ c }) => c.key !== 'status');
+  const title = (key: string) => (key === 'spread' ? 'Spread' : key === 'sources' ? 'Sources' : key);
+  const names = ['Pair', ...shown.map(({ c }) => (c.quantity ? `$${c.quantity.latexName}$` : title(c.key)))];
+  const units = ['', ...shown.map(({ c }) => (c.quantity ? `($${c.quantity.latexUnit}$)` : c.key === 'spread' ? '(rel.)' : ''))];
+  const unitWords = options.units === 'atomic' ? 'atomic units' : 'SI units (CODATA 2018)';
+  const body = rows.map((cells, r) => [
+    latexEscape(cells[0]) + (MARK[statuses[r]] ?? ''),
+    ...shown.map(({ c, i }) => (c.key === 'sources' ? latexEscape(cells[i + 1]) : latexNumber(cells[i + 1]))),
+  ]);
+  return booktabsFloat({
+    comments,
+    caption:
+      `Dispersion coefficients $C_6$, $C_8$ and dispersion-induced dipole coefficients in ${unitWords}` +
+      ` (A at the origin, B at $+R\\hat{z}$, $\\mu_{a,z} \\approx ${LATEX_NAME['D7.a']}/R^7$, $${LATEX_NAME['D7.total']} = ${LATEX_NAME['D7.a']} + ${LATEX_NAME['D7.b']}$, $E \\approx -C_6/R^6 - C_8/R^8$),` +
+      ` by the routes ${latexEscape(table.settings.routes.join(', '))}; spread: largest relative difference between the routes.`,
+    label: 'tab:dispole-coefficients',
+    spec: `l${shown.map(({ c }) => (c.key === 'sources' ? 'c' : 'r')).join('')}`,
+    header: [names, units],
+    rows: body,
+    notes: [
+      ...list.sources.map((src, i) => `${latexEscape(`[${i + 1}]`)}~${latexEscape(src)}`),
+      ...statusNotes(statuses, { item: 'pair', levels: allExact(table) ? undefined : levelsSentence(table) }),
+    ],
+  });
 }

@@ -8,7 +8,7 @@ import type { CoefficientTable } from '../../engines/table.js';
 import { oneLine } from '../format.js';
 
 /** "rescaled (6 rows), model (4 rows)": the levels a column takes over the rows, best first. */
-function levelCounts(levels: AccuracyLevel[]): string {
+export function levelCounts(levels: AccuracyLevel[]): string {
   return ACCURACY_LEVELS.filter((l) => levels.includes(l))
     .map((l) => {
       const n = levels.filter((x) => x === l).length;

@@ -30,6 +30,24 @@ export interface Provenance {
 export const GEOMETRY =
   'A at the origin, B at +R on z; mu_A,z(R) ≈ D7.a/R^7, mu_B,z(R) ≈ D7.b/R^7, D7.total = D7.a + D7.b; E(R) ≈ −C6/R^6 − C8/R^8 − C10/R^10';
 
+/**
+ * The routes asked for and those that ran. Each pair's reference is the first listed route that ran for it, so
+ * when the first listed route ran for no pair (e.g. only the response route takes the recommended atoms), the
+ * sentence names the route(s) that served as reference instead.
+ */
+function routesSentence(table: CoefficientTable): string {
+  const s = table.settings;
+  const used = [...new Set(table.rows.map((r) => r.result.routes[0].name))];
+  const named = s.routes[0];
+  const listed = s.routes.map((r, i) => (i === 0 && used.includes(named) ? `${r} (reference)` : r)).join(', ');
+  const ran = s.routesRun.length < s.routes.length ? `; ran: ${s.routesRun.join(', ') || 'none'}` : '';
+  const reference =
+    used.length === 0 || (used.length === 1 && used[0] === named)
+      ? ''
+      : `; reference: ${used.join(' or ')} (the first listed route that ran for each pair${used.includes(named) ? '' : `; ${named} ran for no pair`})`;
+  return listed + ran + reference;
+}
+
 export function provenanceOf(table: CoefficientTable, units: UnitSystem): Provenance {
   const s = table.settings;
   const list = sourceList(table);
@@ -39,8 +57,7 @@ export function provenanceOf(table: CoefficientTable, units: UnitSystem): Proven
     units: unitsSentence(units),
     geometry: GEOMETRY,
     spread: 'largest relative difference between the routes over C6, C8, C10, D7.a, D7.b (D7.total relative to the larger of |D7.a|, |D7.b|)',
-    routes: s.routes.map((r, i) => (i === 0 ? `${r} (reference)` : r)).join(', ') +
-      (s.routesRun.length < s.routes.length ? `; ran: ${s.routesRun.join(', ') || 'none'}` : ''),
+    routes: routesSentence(table),
     tolerances: [
       `agreement ${s.agreement === undefined ? 'default' : s.agreement.toExponential()}`,
       `route relTol ${s.relTol === undefined ? 'default' : s.relTol.toExponential()}`,
