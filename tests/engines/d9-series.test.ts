@@ -18,6 +18,7 @@ import { computePair } from '../../src/engines/pair.js';
 import { deriveQuantities } from '../../src/engines/symbolic/derive.js';
 import { drude, drudeAnisotropic } from '../../src/model/drude.js';
 import { hydrogenic } from '../../src/model/hydrogenic.js';
+import { qdoPairWithScale } from '../helpers/arbitraries.js';
 import { expectClose, relDiff } from '../helpers/tolerance.js';
 
 // invented demo species (src/model/builtin-species.ts) and two invented axial anisotropic centres
@@ -118,15 +119,7 @@ describe('D9 scaling identities of QDO pairs (derived here)', () => {
   // Second order in V ∝ qA qB with mu_A = −qA zA: D9.a ∝ qA³ qB², D9.b ∝ qA² qB³. With ħ = 1 the only length is
   // s = (2 m w)^-1/2 and the coupling strength is q²/(w s), so D_p ∝ q · s^(p+1) · (q²/(w s))² = q⁵ s^(p−1)/w²:
   // D9 ∝ q⁵/(m⁴ w⁶) when both centres are scaled alike (D7 ∝ q⁵/(m³ w⁵), as its closed form shows).
-  const arb = fc.record({
-    qa: fc.double({ min: 0.5, max: 2, noNaN: true }),
-    ma: fc.double({ min: 0.3, max: 2, noNaN: true }),
-    wa: fc.double({ min: 0.3, max: 1.5, noNaN: true }),
-    qb: fc.double({ min: 0.5, max: 2, noNaN: true }),
-    mb: fc.double({ min: 0.3, max: 2, noNaN: true }),
-    wb: fc.double({ min: 0.3, max: 1.5, noNaN: true }),
-    s: fc.double({ min: 0.5, max: 3, noNaN: true }),
-  });
+  const arb = qdoPairWithScale;
   const d9 = (qa: number, ma: number, wa: number, qb: number, mb: number, wb: number) =>
     computePair(drude({ q: qa, m: ma, w: wa }, 'A'), drude({ q: qb, m: mb, w: wb }, 'B'), { routes: ['perturbation'] }).coefficients.D9!;
   test('qA → s qA: D9.a × s³, D9.b × s²; m → s m (both): × s^-4; w → s w (both): × s^-6', () => {

@@ -11,6 +11,7 @@ import { harmonicSpace } from '../../src/engines/perturbation/harmonic-space.js'
 import { drudeIsotropicResponse, drudeTensorResponse } from '../../src/engines/response/drude-response.js';
 import { isotropicResponseCoefficients } from '../../src/engines/response/isotropic-kernel.js';
 import { tensorResponseCoefficients } from '../../src/engines/response/tensor-kernel.js';
+import { qdoPairWithScale } from '../helpers/arbitraries.js';
 import { expectClose } from '../helpers/tolerance.js';
 import { seededRandom, uniform } from '../helpers/random.js';
 
@@ -137,15 +138,7 @@ describe('the harmonic basis is exact for polynomial couplings', () => {
 });
 
 describe('scaling identities (derived here from V ∝ qA qB and mu_A ∝ qA)', () => {
-  const arb = fc.record({
-    qa: fc.double({ min: 0.5, max: 2, noNaN: true }),
-    ma: fc.double({ min: 0.3, max: 2, noNaN: true }),
-    wa: fc.double({ min: 0.3, max: 1.5, noNaN: true }),
-    qb: fc.double({ min: 0.5, max: 2, noNaN: true }),
-    mb: fc.double({ min: 0.3, max: 2, noNaN: true }),
-    wb: fc.double({ min: 0.3, max: 1.5, noNaN: true }),
-    s: fc.double({ min: 0.5, max: 3, noNaN: true }),
-  });
+  const arb = qdoPairWithScale;
   test('qA → s qA scales C_n by s², D7.a by s³ and D7.b by s²', () => {
     fc.assert(
       fc.property(arb, ({ qa, ma, wa, qb, mb, wb, s }) => {
