@@ -5,7 +5,6 @@
  * The vectors are the ones the route uses: φ_n = R0 V_n|0> and χ = R0 M_p|0>.
  */
 import { describe, expect, test } from 'vitest';
-import { drude, drudeAnisotropic, type DrudeSpecies } from '../../src/model/drude.js';
 import { hydrogenic } from '../../src/model/hydrogenic.js';
 import { couplingTerms } from '../../src/hamiltonian/multipole-coupling.js';
 import { AXIS_MONOMIALS } from '../../src/hamiltonian/monomial.js';
@@ -21,16 +20,11 @@ import {
 import type { LocalSpace } from '../../src/engines/perturbation/local-space.js';
 import { localSpaceOf } from '../../src/engines/capabilities.js';
 import { relDiff } from '../helpers/tolerance.js';
-import { seededRandom, uniform } from '../helpers/random.js';
+import { seededRandom } from '../helpers/random.js';
+import { randomDrude } from '../helpers/random-species.js';
 
 const TOL = 1e-13;
 
-const randomDrude = (rand: () => number, name: string, isotropic: boolean): DrudeSpecies => {
-  const q = uniform(rand, 0.5, 2), m = uniform(rand, 0.2, 2);
-  return isotropic
-    ? drude({ q, m, w: uniform(rand, 0.3, 1.5) }, name)
-    : drudeAnisotropic({ q, m, wx: uniform(rand, 0.3, 1.5), wy: uniform(rand, 0.3, 1.5), wz: uniform(rand, 0.3, 1.5) }, name);
-};
 
 /** Every fused element the route forms for the chains (n, n') against its two-step reference. */
 function checkPair(A: LocalSpace, B: LocalSpace): number {

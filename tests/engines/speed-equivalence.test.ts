@@ -10,7 +10,7 @@
  * - product vectors: every contribution added into a Map one by one.
  */
 import { describe, expect, test } from 'vitest';
-import { drude, drudeAnisotropic, type DrudeSpecies } from '../../src/model/drude.js';
+import type { DrudeSpecies } from '../../src/model/drude.js';
 import { couplingTerms } from '../../src/hamiltonian/multipole-coupling.js';
 import { drudeCouplingPolynomial } from '../../src/hamiltonian/drude-polynomial.js';
 import { forceBalanceCoefficients } from '../../src/engines/force-balance/pair-force-balance.js';
@@ -21,15 +21,10 @@ import type { LocalSpace } from '../../src/engines/perturbation/local-space.js';
 import { localSpaceOf } from '../../src/engines/capabilities.js';
 import { relDiff } from '../helpers/tolerance.js';
 import { seededRandom, uniform } from '../helpers/random.js';
+import { randomDrude } from '../helpers/random-species.js';
 
 const TOL = 1e-13;
 
-const randomDrude = (rand: () => number, name: string, isotropic: boolean): DrudeSpecies => {
-  const q = uniform(rand, 0.5, 2), m = uniform(rand, 0.2, 2);
-  return isotropic
-    ? drude({ q, m, w: uniform(rand, 0.3, 1.5) }, name)
-    : drudeAnisotropic({ q, m, wx: uniform(rand, 0.3, 1.5), wy: uniform(rand, 0.3, 1.5), wz: uniform(rand, 0.3, 1.5) }, name);
-};
 
 // ---------- force balance: reference polynomials keyed by exponent lists ----------
 type RefPoly = Map<string, number>;
