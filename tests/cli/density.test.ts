@@ -66,6 +66,16 @@ describe('dispole density', () => {
     expect(code).toBe(2);
     expect(err).toMatch(/Nobody: is not a known species; use a built-in name \(.*Quelon/);
   });
+
+  test('--R beyond 1e6 bohr is refused with the limit in the unit asked for (1e308 Å overflowed to an infinite R in bohr)', async () => {
+    const a = await run(['density', 'Quelon', 'Virid', '--R', '1e308']);
+    expect(a.code).toBe(2);
+    expect(a.out).toBe('');
+    expect(a.err).toBe('dispole: error: --R: must be a distance > 0 and at most 529177 Å, got 1e+308 Å\n');
+    const b = await run(['density', 'Quelon', 'Virid', '--R', '2e6', '--length', 'bohr']);
+    expect(b.code).toBe(2);
+    expect(b.err).toContain('--R: must be a distance > 0 and at most 1000000 bohr, got 2000000 bohr');
+  });
 });
 
 describe('dispole density --units si', () => {

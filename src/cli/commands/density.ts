@@ -17,6 +17,7 @@ import { computePair } from '../../engines/pair.js';
 import { pairSpeciesWarnings } from '../../engines/capabilities.js';
 import { accuracyStatementLine, accuracyToJson } from '../../report/accuracy-report.js';
 import { EXIT } from '../exit-codes.js';
+import { requireDistance } from '../distance-range.js';
 
 interface DensityFlags extends ExactFlags {
   R: number;
@@ -62,7 +63,7 @@ export function registerDensity(program: Command, ctx: CommandContext): void {
     const format = chooseFormat(flags, ['text', 'csv', 'json']);
     if (flags.svg !== undefined && flags.svg === flags.out) throw new InputError('--svg', 'names the same file as --out');
     const [A, B] = exactPair(ctx, [a, b], flags.species);
-    const R = toBohr(flags.R, flags.length);
+    const R = toBohr(requireDistance('--R', flags.R, flags.length), flags.length);
     const state = exactSolver(A, B, { order: flags.order ?? defaultExactOrder(A, B), tolerance: flags.basisTol, maxQuanta: flags.totalQuanta }).solve(R);
     const p = state.point;
     // a user-chosen order below the default: say what the dipoles and energy printed here lack
