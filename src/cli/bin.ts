@@ -1,50 +1,8 @@
 #!/usr/bin/env node
-/** Executable entry point of the `dispole` command. */
-import { runCli } from './program.js';
-import { nodeIO, OutputFailure } from './io.js';
-import { EXIT } from './exit-codes.js';
-
-/** Exit code for an internal error (EX_SOFTWARE of BSD sysexits.h; common practice). */
-const INTERNAL = 70;
-
-/** Last words on stderr, ignoring a stderr that cannot be written either. */
-function say(text: string): void {
-  try {
-    process.stderr.write(text);
-  } catch {
-    /* nowhere to say it */
-  }
-}
-
 /**
- * A failed write to stdout: the reader closed the pipe (EPIPE, e.g. `| head -1`) → stop quietly with 0; anything
- * else (ENOSPC on `> /dev/full`, EIO) → an I/O error, exit {@link EXIT.io}.
+ * The same executable as `bin.cts` under the path earlier builds had (`node dist/cli/bin.js …`): an ES module that
+ * hands over to the CommonJS one, so scripts written for that path keep working (a little slower to start).
  */
-function onStdoutError(e: NodeJS.ErrnoException): void {
-  if (e.code === 'EPIPE') process.exit(EXIT.ok);
-  say(`dispole: error: standard output: cannot be written (${e.code ?? e.message})\n`);
-  process.exit(EXIT.io);
-}
+import { createRequire } from 'node:module';
 
-process.stdout.on('error', onStdoutError);
-process.stderr.on('error', () => process.exit(process.exitCode ?? EXIT.io));
-
-runCli(process.argv.slice(2), nodeIO).then(
-  (code) => {
-    process.exitCode = code;
-  },
-  (e: unknown) => {
-    if (e instanceof OutputFailure) {
-      say(`dispole: error: ${e.message}\n`);
-      process.exitCode = EXIT.io;
-      return;
-    }
-    const code = (e as NodeJS.ErrnoException | undefined)?.code;
-    if (code === 'EPIPE' || code === 'ENOSPC' || code === 'EIO') {
-      onStdoutError(e as NodeJS.ErrnoException);
-      return;
-    }
-    say(`dispole: internal error: ${(e as Error).stack ?? String(e)}\n`);
-    process.exitCode = INTERNAL;
-  },
-);
+createRequire(import.meta.url)('./bin.cjs');

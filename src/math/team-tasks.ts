@@ -29,22 +29,23 @@ export interface TeamContext {
  * The reflector vectors are the columns of the row-major n×n `a` (column k: unit at row k+1, zeros above it up to
  * row k0+1, the first row of its block, which is all that is read).
  * args: a, n, z, tBlocks (block i's b×b upper triangle at tBlocks + i·b²·8), b, chunkWidth, scratch (2·b·chunkWidth
- * f64 per thread), slab.
+ * f64 per thread), slab, registerTiles (1: the products W = Uᵀ Z and Z −= U W by gemmTile, else by gemm).
  */
 function backTransform(ctx: TeamContext, args: Float64Array): void {
   const a = args[0], n = args[1], z = args[2], tBlocks = args[3], nb = args[4], cw = args[5], slab = args[7];
   const w1 = args[6] + ctx.member * 2 * nb * cw * 8, w2 = w1 + nb * cw * 8;
   const count = n - 2, blocks = Math.ceil(count / nb), chunks = Math.ceil(n / cw);
   const K = ctx.kernels, F = ctx.f64;
+  const product = args[8] ? K.gemmTile : K.gemm;
   for (let c = ctx.next(); c < chunks; c = ctx.next()) {
     const c0 = c * cw, width = Math.min(cw, n - c0), ld = width * 8;
     for (let bi = blocks - 1; bi >= 0; bi--) {
       const k0 = bi * nb, b = Math.min(nb, count - k0);
       F.fill(0, w1 / 8, w1 / 8 + b * width);
       F.fill(0, w2 / 8, w2 / 8 + b * width);
-      for (let s = k0 + 1; s < n; s += slab) K.gemm(w1, ld, a + (s * n + k0) * 8, 8, n * 8, z + (s * n + c0) * 8, n * 8, b, width, Math.min(slab, n - s), 1);
+      for (let s = k0 + 1; s < n; s += slab) product(w1, ld, a + (s * n + k0) * 8, 8, n * 8, z + (s * n + c0) * 8, n * 8, b, width, Math.min(slab, n - s), 1);
       K.gemm(w2, ld, tBlocks + bi * nb * nb * 8, nb * 8, 8, w1, ld, b, width, b, 1);
-      K.gemm(z + ((k0 + 1) * n + c0) * 8, n * 8, a + ((k0 + 1) * n + k0) * 8, n * 8, 8, w2, ld, n - k0 - 1, width, b, -1);
+      product(z + ((k0 + 1) * n + c0) * 8, n * 8, a + ((k0 + 1) * n + k0) * 8, n * 8, 8, w2, ld, n - k0 - 1, width, b, -1);
     }
     ctx.done();
   }
@@ -54,12 +55,14 @@ function backTransform(ctx: TeamContext, args: Float64Array): void {
  * C += alpha A B on the lower triangle of a square C (order×order), by tiles (row block × column chunk, the
  * diagonal tiles up to the block's last column), each summed over slabs of the depth; `zeroFirst` clears a tile
  * first. A(i, p) at a + i·aRow + p·aCol, B row-major (ldb), C row-major (ldc), all in bytes. Serves the Gram
- * matrix Xᵀ X.
- * args: c, ldc, a, aRow, aCol, b, ldb, order, depth, alpha, tileRows, tileCols, slab, zeroFirst.
+ * matrix Xᵀ X (kernel gemm) and the rank-2k update of the blocked tridiagonalisation (`registerTiles` 1: kernel
+ * gemmTile, for short depths).
+ * args: c, ldc, a, aRow, aCol, b, ldb, order, depth, alpha, tileRows, tileCols, slab, zeroFirst, registerTiles.
  */
 function lowerTiles(ctx: TeamContext, args: Float64Array): void {
   const c = args[0], ldc = args[1], a = args[2], aRow = args[3], aCol = args[4], b = args[5], ldb = args[6];
   const order = args[7], depth = args[8], alpha = args[9], tr = args[10], tc = args[11], slab = args[12], zeroFirst = args[13];
+  const product = args[14] ? ctx.kernels.gemmTile : ctx.kernels.gemm;
   const rowBlocks = Math.ceil(order / tr);
   const chunksOf = (rb: number) => Math.ceil(Math.min(order, (rb + 1) * tr) / tc);
   let rb = 0, first = 0; // units are taken in increasing order, so the row block only moves forward
@@ -73,14 +76,15 @@ function lowerTiles(ctx: TeamContext, args: Float64Array): void {
     const c0 = (u - first) * tc, c1 = Math.min(c0 + tc, r1);
     if (zeroFirst) for (let r = r0; r < r1; r++) ctx.f64.fill(0, (c + r * ldc) / 8 + c0, (c + r * ldc) / 8 + c1);
     for (let s = 0; s < depth; s += slab)
-      ctx.kernels.gemm(c + r0 * ldc + c0 * 8, ldc, a + r0 * aRow + s * aCol, aRow, aCol, b + s * ldb + c0 * 8, ldb, r1 - r0, c1 - c0, Math.min(slab, depth - s), alpha);
+      product(c + r0 * ldc + c0 * 8, ldc, a + r0 * aRow + s * aCol, aRow, aCol, b + s * ldb + c0 * 8, ldb, r1 - r0, c1 - c0, Math.min(slab, depth - s), alpha);
     ctx.done();
   }
 }
 
 /**
- * One step of the fused tridiagonalisation over row chunks (src/math/simd-kernels.ts tridiagonalPass); chunk c
- * accumulates its part of p = A22 v in its own array so the caller can sum them in a fixed order.
+ * One step of the fused tridiagonalisation over row chunks (src/math/simd-kernels.ts tridiagonalPass), or with
+ * vp = −1 the product p = A22 v alone (symmetricProduct, the blocked reduction); chunk c accumulates its part of
+ * p in its own array so the caller can sum them in a fixed order.
  * args: a, n, k, vp, wp, v, pChunks (chunk c at pChunks + c·n·8), chunkCount, chunk row bounds (chunkCount + 1).
  */
 function tridiagonalChunks(ctx: TeamContext, args: Float64Array): void {
@@ -88,7 +92,8 @@ function tridiagonalChunks(ctx: TeamContext, args: Float64Array): void {
   for (let c = ctx.next(); c < chunks; c = ctx.next()) {
     const p = pChunks + c * n * 8;
     ctx.f64.fill(0, p / 8 + k + 1, p / 8 + n);
-    ctx.kernels.tridiagonalPass(a, n, k, args[8 + c], args[9 + c], vp, wp, v, p);
+    if (vp < 0) ctx.kernels.symmetricProduct(a, n, k, args[8 + c], args[9 + c], v, p);
+    else ctx.kernels.tridiagonalPass(a, n, k, args[8 + c], args[9 + c], vp, wp, v, p);
   }
 }
 

@@ -120,6 +120,11 @@ export class ThreadTeam {
   private sequence = 0;
   private generation = 0;
   private closed = false;
+  /**
+   * Milliseconds the calling thread spent, at the end of the last run, waiting for workers to finish the units
+   * they had taken (large when a worker was descheduled mid-unit on a busy machine).
+   */
+  lastWaitMs = 0;
 
   /** A team of `size` threads in all (size − 1 workers; size 1 runs everything on the calling thread). */
   constructor(readonly size: number) {
@@ -171,6 +176,7 @@ export class ThreadTeam {
     if (!this.ctx) throw new Error('thread team has no workspace attached');
     if (args.length > ARGS_MAX) throw new RangeError(`at most ${ARGS_MAX} task arguments`);
     this.args.set(args);
+    this.args.fill(0, args.length); // arguments a task treats as optional read 0, not a previous run's values
     this.ctl[TASK] = TASK_NAMES.indexOf(task);
     Atomics.store(this.ctl, FAILED, 0);
     this.generation = (this.generation + 1) & 0x7ff;
@@ -185,7 +191,9 @@ export class ThreadTeam {
       error = e;
     }
     Atomics.store(this.ctl, UNITS, (this.generation << 20) | CLOSED); // no more units for late workers
-    this.waitUntilZero(BUSY);
+    const waitFrom = performance.now();
+    this.waitUntilZero(BUSY); // also after a local run: a worker late for an earlier run may have joined this one
+    this.lastWaitMs = performance.now() - waitFrom;
     this.onUnit = () => {};
     if (error) throw error;
     this.rethrowWorkerError();

@@ -104,6 +104,10 @@ export class FunctionBuilder {
   storeV128(offset = 0): this {
     return this.emit(...simd(0x0b), 3, ...unsignedLeb(offset));
   }
+  /** v128.load64_splat: one f64 from memory into both lanes (address on the stack). */
+  loadSplatF64(offset = 0): this {
+    return this.emit(...simd(0x0a), 3, ...unsignedLeb(offset));
+  }
   extractLane(lane: 0 | 1): this {
     return this.emit(...simd(0x21), lane);
   }

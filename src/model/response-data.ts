@@ -39,6 +39,8 @@ export interface ResponseTableSpecies {
   /** Electron number N (large-u tail alpha ~ N/u²). */
   electrons?: number;
   source?: string;
+  /** A short form of `source` for one-line reports, when the full one runs to several lines (recommended atoms). */
+  sourceBrief?: string;
 }
 
 /** A dipole pseudo-spectrum: alpha(iu) = Σ f_i / (ω_i² + u²), plus a static B. Atomic units. */

@@ -33,7 +33,7 @@ export function describeSpecies(s: Species): string {
       const last = s.u.length - 1;
       const b = s.hyperB ? 'B(0;iu,-iu) tabulated' : `static B=${fmt(s.staticB ?? 0)} (D7 approximate)`;
       const extra = s.alpha3 ? ', alpha2, alpha3' : s.alpha2 ? ', alpha2' : '';
-      const n = s.electrons !== undefined ? `, N=${fmt(s.electrons)}` : '';
+      const n = s.electrons !== undefined ? `, tail alpha→${fmt(s.electrons)}/u²` : '';
       return `response table: ${s.u.length} points u=0…${fmt(s.u[last])} Eh, alpha(0)=${fmt(s.alpha[0])}${extra}, ${b}${n}`;
     }
     case 'oscillator-spectrum': {
@@ -46,3 +46,8 @@ export function describeSpecies(s: Species): string {
 }
 
 const fmt = (x: number): string => sig(x, 10);
+
+/** The source as one-line reports show it: the short form where a species has one (the full one is in `species`). */
+export function sourceInBrief(s: Species): string | undefined {
+  return (s.kind === 'response-table' ? s.sourceBrief : undefined) ?? s.source;
+}

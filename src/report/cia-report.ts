@@ -4,7 +4,7 @@
  */
 import { BAND_INTEGRAL_DEFINITIONS } from '../engines/cia/absorption.js';
 import type { CiaResult } from '../engines/cia/cia.js';
-import { csvField, formatColumns, oneLine, sig, spreadText, textTable } from './format.js';
+import { csvField, formatColumns, labelToDigits, oneLine, sig, spreadText, textTable } from './format.js';
 
 /** Units of every number of the report (also the JSON `unitsDetail`). */
 export const CIA_UNITS = {
@@ -94,10 +94,10 @@ export function ciaToText(r: CiaResult, digits: number): string {
   const [mA, mB] = r.pair.masses;
   out.push(`Collision-induced absorption, ${r.pair.A}–${r.pair.B} (translational band, per n1 n2)`);
   out.push(`  masses ${sig(mA)} u, ${sig(mB)} u (${r.pair.massSource}); reduced mass ${sig(r.pair.reducedMass, digits)} u`);
-  out.push(`  potential: ${r.potential.label}`);
+  out.push(`  potential: ${labelToDigits(r.potential.label, digits)}`);
   out.push(`    ${r.potential.basis}`);
   if (r.potential.well) out.push(`    well: ${sig(r.potential.well.depth, digits)} Eh (${sig(r.potential.well.depthK, 5)} K) at R = ${sig(r.potential.well.R, digits)} bohr`);
-  out.push(`  dipole: ${r.dipole.label}`);
+  out.push(`  dipole: ${labelToDigits(r.dipole.label, digits)}`);
   out.push(`    ${r.dipole.basis}`);
   out.push(`    sign convention: ${r.dipole.convention}`);
   out.push(`  numbers rest on: ${WHAT_THE_NUMBERS_REST_ON}`);

@@ -10,7 +10,7 @@ import { isSpherical, pairSpeciesWarnings } from '../engines/capabilities.js';
 import { pairAccuracy, type PairAccuracy } from '../engines/accuracy.js';
 import { accuracyStatementLine, accuracyToJson } from './accuracy-report.js';
 import { orderCompleteness, type OrderCompleteness } from '../engines/exact/series-terms.js';
-import { describeSpecies, type Species } from '../model/species.js';
+import { describeSpecies, sourceInBrief, type Species } from '../model/species.js';
 import { bohrToAngstrom, dipoleAuToDebye, energyFromHartree, energyUnitText, type EnergyUnit } from '../model/units.js';
 import { VERSION } from '../version.js';
 import { csvField, DEFAULT_DIGITS, formatColumns, sig, textTable } from './format.js';
@@ -79,7 +79,7 @@ export function asymptoticForms(c: CurveCoefficients, R: number) {
 /** The printed series in words, e.g. "D7/R^7 + D9/R^9 + D10/R^10", and the power it is complete through. */
 export function seriesLaw(c: CurveCoefficients): { dipole: string; energy: string; dipoleThrough: number } {
   const dipole = [c.D4 && 'D4/R^4', c.D6 && 'D6/R^6', 'D7/R^7', c.D8 && 'D8/R^8', c.D9 && 'D9/R^9', c.D10 && 'D10/R^10'].filter(Boolean).join(' + ');
-  const energy = [c.E5 !== undefined && 'E5/R^5', '−C6/R^6', c.E7 !== undefined && 'E7/R^7', c.C8 !== undefined && '−C8/R^8'].filter(Boolean).join(' + ').replace(/\+ −/g, '− ');
+  const energy = [c.E5 !== undefined && 'E5/R^5', '−C6/R^6', c.E7 !== undefined && 'E7/R^7', c.C8 !== undefined && '−C8/R^8'].filter(Boolean).join(' + ').replace(/\+ \u2212/g, '− ');
   return { dipole, energy, dipoleThrough: c.D10 ? 10 : c.D9 ? 9 : 7 };
 }
 
@@ -146,8 +146,8 @@ function header(d: CurveData, o: CurveUnits): string[] {
   const lines = [
     `Pair ${d.a.name} – ${d.b.name}: A at the origin, B at +R on z; exact ground state of the multipole Hamiltonian through order ${d.order}`,
     `  units: R in ${unitName(d.lengthUnit)}, dipoles in ${u.muText}, energies in ${u.eText}${u.si ? ' (CODATA 2018)' : ''}; coefficients in atomic units`,
-    `  A  ${d.a.name}: ${describeSpecies(d.a)}${d.a.source ? `  [${d.a.source}]` : ''}`,
-    `  B  ${d.b.name}: ${describeSpecies(d.b)}${d.b.source ? `  [${d.b.source}]` : ''}`,
+    `  A  ${d.a.name}: ${describeSpecies(d.a)}${sourceInBrief(d.a) ? `  [${sourceInBrief(d.a)}]` : ''}`,
+    `  B  ${d.b.name}: ${describeSpecies(d.b)}${sourceInBrief(d.b) ? `  [${sourceInBrief(d.b)}]` : ''}`,
     `  asymptotic forms (perturbation route): D7.a = ${sig(c.D7.a)}, D7.b = ${sig(c.D7.b)} e a0^8${c.D9 ? `;  D9.a = ${sig(c.D9.a)}, D9.b = ${sig(c.D9.b)} e a0^10` : ''}${c.D10 ? `;  D10.a = ${sig(c.D10.a)}, D10.b = ${sig(c.D10.b)} e a0^11 (third order)` : ''};  C6 = ${sig(c.C6)} Eh a0^6${c.C8 !== undefined ? `, C8 = ${sig(c.C8)} Eh a0^8` : ''}`,
   ];
   if (c.D4 || c.E5 !== undefined) {

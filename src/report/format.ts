@@ -15,6 +15,15 @@ export function csvField(s: string): string {
 /** Text on one line: line breaks (possible in YAML names and sources) become spaces, so no format's layout breaks. */
 export const oneLine = (s: string): string => s.replace(/\s*[\r\n]+\s*/g, ' ');
 
+/**
+ * A label that echoes numbers at full precision (e.g. coefficients computed by another route) with every decimal
+ * number of more than `digits` significant digits shown to `digits`, for text reports (JSON keeps the label as is).
+ */
+export function labelToDigits(label: string, digits: number): string {
+  const significant = (m: string) => m.replace(/e.*$/i, '').replace(/[-.]/g, '').replace(/^0+/, '').length;
+  return label.replace(/-?\d+\.\d+(?:e[+-]?\d+)?/gi, (m) => (significant(m) > digits ? sigDigits(Number(m), digits) : m));
+}
+
 /** A relative spread: two significant digits, always in exponent form (`3.1e-15`, `1.3e+00`). */
 export const spreadText = (x: number): string => (x === 0 ? '0' : sigDigits(x, 2, 'exponent'));
 

@@ -1,7 +1,7 @@
 /** Reports of a pair computation: the JSON object of the CLI contract and the human table. */
 import type { PairResult } from '../engines/pair.js';
 import type { RouteResult } from '../engines/route.js';
-import { describeSpecies } from '../model/species.js';
+import { describeSpecies, sourceInBrief } from '../model/species.js';
 import { dipoleCoefficientAuToDebyeAngstrom, dipoleCoefficientAuToSI, dispersionAuToSI } from '../model/units.js';
 import { VERSION } from '../version.js';
 import { csvField, DEFAULT_DIGITS, formatColumns, oneLine, sigDigits, spreadText, textTable } from './format.js';
@@ -77,7 +77,7 @@ export function pairToText(p: PairResult, options: { digits?: number; units?: Un
   const unitWords = options.units === 'si' ? 'table in atomic units, SI values (CODATA 2018) below' : 'atomic units';
   lines.push(`Pair ${p.a.name} – ${p.b.name}: A at the origin, B at +R on z; ${unitWords}`);
   for (const [label, s] of [['A', p.a], ['B', p.b]] as const) {
-    lines.push(`  ${label}  ${s.name}: ${describeSpecies(s)}${s.source ? `  [${s.source}]` : ''}`);
+    lines.push(`  ${label}  ${s.name}: ${describeSpecies(s)}${sourceInBrief(s) ? `  [${sourceInBrief(s)}]` : ''}`);
   }
   lines.push('');
   // D9 columns when some route gives it (perturbation, exact); '—' for routes without it

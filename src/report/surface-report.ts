@@ -4,7 +4,7 @@ import type { SurfaceRouteResult } from '../engines/surface/surface-route.js';
 import type { SurfaceExactCurve } from '../engines/surface/exact-surface.js';
 import type { LengthUnit } from './curve-report.js';
 import { SURFACE_QUANTITY_MEANING, type DerivedSurfaceQuantity } from '../engines/symbolic/symbolic-surface.js';
-import { describeSpecies } from '../model/species.js';
+import { describeSpecies, sourceInBrief } from '../model/species.js';
 import { describeSurface } from '../model/surface-spec.js';
 import { BOHR_IN_ANGSTROM, HARTREE_IN_EV, bohrToAngstrom, dipoleCoefficientAuToDebyeAngstrom, dipoleCoefficientAuToSI, dispersionAuToSI } from '../model/units.js';
 import { VERSION } from '../version.js';
@@ -66,7 +66,7 @@ export function surfaceToText(p: SurfaceResult, options: { digits?: number; unit
   const f = (x: number | undefined) => (x === undefined ? '—' : sig(x, digits));
   const lines: string[] = [];
   lines.push(`${p.species.name} in front of a surface; atomic units`);
-  lines.push(`  atom     ${describeSpecies(p.species)}${p.species.source ? `  [${p.species.source}]` : ''}`);
+  lines.push(`  atom     ${describeSpecies(p.species)}${sourceInBrief(p.species) ? `  [${sourceInBrief(p.species)}]` : ''}`);
   lines.push(`  surface  ${describeSurface(p.surface, (x) => sig(x, digits))}`);
   lines.push(`  rests on ${p.accuracy.statement} (C3, C5: ${p.accuracy.quantities.C3}; D4: ${p.accuracy.quantities.D4})`);
   if (p.normal[0] !== 0 || p.normal[1] !== 0) lines.push(`  normal   (${p.normal.map((x) => sig(x, digits)).join(', ')}) in the atom's axes`);

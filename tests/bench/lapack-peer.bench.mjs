@@ -1,6 +1,7 @@
 // The cluster's dense eigensolve against single-thread LAPACK (numpy.linalg.eigh) on the same matrix.
 // Usage: node tests/bench/lapack-peer.bench.mjs [N …]   (default 1000; N centres → a 3N×3N matrix)
-// Optional: DISPOLE_DIST=/path/to/build (default dist/ of this checkout); ROUNDS=n alternating rounds (default 1).
+// Optional: DISPOLE_DIST=/path/to/build (default dist/ of this checkout); ROUNDS=n alternating rounds (default 1);
+// THREADS=t runs our eigensolve on a team of t threads (default: the engine's choice, all cores from order 500).
 //
 // The matrix is the mass-weighted force-constant matrix of a seeded random cluster of invented QDOs
 // (tests/bench/random-cluster.mjs): diagonal w², off-diagonal blocks q_i q_j (1 − 3 r̂r̂ᵀ)/r³ / sqrt(m_i m_j)
@@ -8,6 +9,8 @@
 // numpy runs with one BLAS thread; OPENBLAS_CORETYPE / OPENBLAS_L2_SIZE are removed from its environment only (they
 // select an old kernel on some machines here and slow a current numpy). Without python3 + numpy that part is skipped.
 // Runs alternate (ours, LAPACK, ours, LAPACK …) so that both see the same machine load; the ratio is per pair.
+// Also printed: the eigensolve's stages (wall s) and the peak resident memory of this process (the eigensolve and
+// the whole cluster; LAPACK runs in its own process).
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { availableParallelism, loadavg, tmpdir } from 'node:os';
@@ -17,6 +20,7 @@ import { randomCluster } from './random-cluster.mjs';
 
 const dist = resolve(process.env.DISPOLE_DIST ?? new URL('../../dist', import.meta.url).pathname);
 const { symmetricEigen } = await import(pathToFileURL(join(dist, 'math/symmetric-eigen.js')).href);
+const { ThreadTeam } = await import(pathToFileURL(join(dist, 'math/thread-team.js')).href);
 const { computeCluster } = await import(pathToFileURL(join(dist, 'engines/cluster/cluster.js')).href);
 const { drude } = await import(pathToFileURL(join(dist, 'model/drude.js')).href);
 
@@ -42,11 +46,11 @@ function forceConstantMatrix(centres) {
 }
 
 const PEER = `
-import sys, time, numpy as np
+import sys, time, resource, numpy as np
 n = int(sys.argv[2]); a = np.fromfile(sys.argv[1], dtype=np.float64).reshape(n, n)
 t, c = time.perf_counter(), time.process_time(); w, v = np.linalg.eigh(a)
 dt, dc = time.perf_counter() - t, time.process_time() - c
-print(f"{dt:.4f} {dc:.4f} {w[0]:.17g} {w[-1]:.17g} numpy {np.__version__}")
+print(f"{dt:.4f} {dc:.4f} {w[0]:.17g} {w[-1]:.17g} numpy {np.__version__} {resource.getrusage(resource.RUSAGE_SELF).ru_maxrss}")
 `;
 
 function lapack(file, n) {
@@ -55,12 +59,13 @@ function lapack(file, n) {
   delete env.OPENBLAS_L2_SIZE;
   const r = spawnSync('python3', ['-c', PEER, file, String(n)], { env, encoding: 'utf8' });
   if (r.error || r.status !== 0) return undefined;
-  const [seconds, cpu, lowest, highest, , version] = r.stdout.trim().split(/\s+/);
-  return { seconds: Number(seconds), cpu: Number(cpu), lowest: Number(lowest), highest: Number(highest), version };
+  const [seconds, cpu, lowest, highest, , version, rssKiB] = r.stdout.trim().split(/\s+/);
+  return { seconds: Number(seconds), cpu: Number(cpu), lowest: Number(lowest), highest: Number(highest), version, rssMB: Number(rssKiB) / 1024 };
 }
 
 const sizes = process.argv.slice(2).map(Number).filter((x) => x > 0);
 const rounds = Number(process.env.ROUNDS ?? 1);
+const threads = process.env.THREADS ? Number(process.env.THREADS) : undefined;
 console.log(`node ${process.version}, ${availableParallelism()} cores; build ${dist}`);
 const dir = mkdtempSync(join(tmpdir(), 'dispole-peer-'));
 try {
@@ -76,22 +81,29 @@ try {
         const u = process.cpuUsage(since);
         return (u.user + u.system) / 1e6;
       };
+      const stages = [];
+      const stage = (name) => {
+        if (stages.at(-1)?.name !== name) stages.push({ name, at: performance.now() });
+      };
       let t = performance.now(), c = process.cpuUsage();
-      const ours = symmetricEigen(D, n);
+      const team = threads ? new ThreadTeam(threads) : undefined;
+      const ours = symmetricEigen(D, n, { progress: (name) => stage(name), team });
       const eig = (performance.now() - t) / 1000, eigCpu = cpuSeconds(c);
+      team?.close();
+      const split = stages.map((s, i) => `${s.name} ${(((stages[i + 1]?.at ?? t + eig * 1000) - s.at) / 1000).toFixed(2)}`).join(', ');
       t = performance.now();
       c = process.cpuUsage();
       computeCluster(centres);
       const cluster = (performance.now() - t) / 1000, clusterCpu = cpuSeconds(c);
       const peer = lapack(file, n);
       const line = [
-        `N ${N} (n ${n}), load ${load}: eigensolve ${eig.toFixed(2)} s (CPU ${eigCpu.toFixed(2)} s, all threads), ` +
-          `whole cluster ${cluster.toFixed(2)} s (CPU ${clusterCpu.toFixed(2)} s)`,
+        `N ${N} (n ${n}), load ${load}: eigensolve ${eig.toFixed(2)} s (CPU ${eigCpu.toFixed(2)} s, ${threads ? `${threads} thread(s)` : 'all threads'}; ${split}), ` +
+          `whole cluster ${cluster.toFixed(2)} s (CPU ${clusterCpu.toFixed(2)} s), peak RSS ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB`,
       ];
       if (peer) {
         const agree = Math.max(Math.abs(ours.values[0] - peer.lowest), Math.abs(ours.values[n - 1] - peer.highest));
         line.push(
-          `LAPACK eigh (numpy ${peer.version}, 1 thread) ${peer.seconds.toFixed(2)} s (CPU ${peer.cpu.toFixed(2)} s)`,
+          `LAPACK eigh (numpy ${peer.version}, 1 thread) ${peer.seconds.toFixed(2)} s (CPU ${peer.cpu.toFixed(2)} s, peak RSS ${peer.rssMB.toFixed(0)} MB)`,
           `wall ratios eigensolve/eigh ${(eig / peer.seconds).toFixed(2)}, cluster/eigh ${(cluster / peer.seconds).toFixed(2)}`,
           `CPU ratios ${(eigCpu / peer.cpu).toFixed(2)}, ${(clusterCpu / peer.cpu).toFixed(2)}`,
           `extreme eigenvalues agree to ${agree.toExponential(1)}`,

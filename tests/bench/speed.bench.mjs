@@ -1,7 +1,8 @@
 // Speed issue: in-process ratios and compute times (start-up excluded), each measured in one run.
 // Usage: node tests/bench/speed.bench.mjs   (DISPOLE_DIST=/path/to/build to measure another build than dist/)
 // - the finite-R trust check (localisationCheck) against the whole exact solve at the same R (which includes it);
-// - `pair H H` compute: computePair(H, H) in a fresh process, first call (pseudo-spectra built, JIT cold) and warm;
+// - `pair H H` compute: computePair(H, H) in a fresh process, first call (pseudo-spectra built, JIT cold) and warm
+//   (DISPOLE_DIST_OLD=/path/to/other/build: both builds alternating, with the first-call ratio);
 // - force-balance coefficients of one QDO pair with and without C10.
 // Species: invented demo QDOs Quelon/Virid, and hydrogen (exact, first principles).
 // Whole-process ratios (start-up, tables) are measured from outside with /usr/bin/time or a benchmark tool: see
@@ -46,8 +47,10 @@ for (const order of [3, 4]) {
 }
 
 // --- pair H H compute in a fresh process (module loading excluded) ---
-const child = `
-const lib = await import(${JSON.stringify(pathToFileURL(join(dist, 'index.js')).href)});
+// With DISPOLE_DIST_OLD=<build>, that build runs too, alternating with this one (same load), and the first-call
+// ratio new/old is the median of the per-round ratios.
+const childFor = (build) => `
+const lib = await import(${JSON.stringify(pathToFileURL(join(build, 'index.js')).href)});
 let t = performance.now();
 lib.computePair(lib.resolveSpecies('H'), lib.resolveSpecies('H'));
 const first = performance.now() - t;
@@ -55,14 +58,24 @@ const warm = [];
 for (let i = 0; i < 3; i++) { t = performance.now(); lib.computePair(lib.resolveSpecies('H'), lib.resolveSpecies('H')); warm.push(performance.now() - t); }
 console.log(first.toFixed(0), Math.min(...warm).toFixed(0));
 `;
-const firsts = [], warms = [];
-for (let i = 0; i < 3; i++) {
-  const r = spawnSync(process.execPath, ['--input-type=module', '-e', child], { encoding: 'utf8' });
-  const [first, warm] = r.stdout.trim().split(' ').map(Number);
-  firsts.push(first);
-  warms.push(warm);
+const builds = [['this build', dist], ...(process.env.DISPOLE_DIST_OLD ? [['old build', resolve(process.env.DISPOLE_DIST_OLD)]] : [])];
+const rounds = builds.length > 1 ? 9 : 3;
+const times = builds.map(() => ({ firsts: [], warms: [] }));
+for (let i = 0; i < rounds; i++)
+  builds.forEach(([, build], b) => {
+    const r = spawnSync(process.execPath, ['--input-type=module', '-e', childFor(build)], { encoding: 'utf8' });
+    const [first, warm] = r.stdout.trim().split(' ').map(Number);
+    times[b].firsts.push(first);
+    times[b].warms.push(warm);
+  });
+builds.forEach(([name], b) => {
+  const { firsts, warms } = times[b];
+  console.log(`pair H H compute, ${name} (fresh process, after module loading): first call ${median(firsts)} ms (runs ${firsts.join(', ')}); warm ${median(warms)} ms`);
+});
+if (builds.length > 1) {
+  const ratios = times[0].firsts.map((x, i) => x / times[1].firsts[i]);
+  console.log(`pair H H first call, this build / old build: median ${median(ratios).toFixed(2)} (range ${Math.min(...ratios).toFixed(2)}–${Math.max(...ratios).toFixed(2)}, ${rounds} rounds)`);
 }
-console.log(`pair H H compute (fresh process, after module loading): first call ${median(firsts)} ms (runs ${firsts.join(', ')}); warm ${median(warms)} ms`);
 
 // --- force balance per pair ---
 const pairs = Array.from({ length: 50 }, (_, i) => [drude({ q: 0.8 + 0.01 * i, m: 0.4, w: 0.7 }), drude({ q: 1.3, m: 0.5 + 0.004 * i, w: 0.6 })]);

@@ -10,7 +10,8 @@ import { loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 
 const dist = resolve(process.env.DISPOLE_DIST ?? new URL('../../dist', import.meta.url).pathname);
-const bin = join(dist, 'cli/bin.js');
+const bin = join(dist, 'cli/bin.cjs'); // the package's command: the bundled CLI with its code cache
+const tree = join(dist, 'cli/main.js'); // the same program from the module tree (no bundle), for comparison
 const runs = Number(process.argv[2] ?? 7);
 const node = process.execPath;
 
@@ -58,6 +59,7 @@ try {
   compare('dispole --help / node -e 0', [bin, '--help'], bare, 1.5);
   compare('dispole pair Quelon Virid / node -e 0', [bin, 'pair', 'Quelon', 'Virid'], bare, 2);
   compare('dispole check "x+" --for D7.a / node -e 0', [bin, 'check', 'x+', '--for', 'D7.a'], bare, 2);
+  compare('pair Quelon Virid: bundle / module tree', [bin, 'pair', 'Quelon', 'Virid'], [tree, 'pair', 'Quelon', 'Virid'], '1 (information)');
   compare(
     'table, default routes / perturbation + response',
     [bin, 'table', '--species', speciesFile, '--csv'],

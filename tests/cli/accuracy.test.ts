@@ -104,6 +104,16 @@ describe('recommended atoms', () => {
     }
   });
 
+  test('pair He Ar (text): each species line is one short line that names the level and the fitted data and points to the full sources; `species` lists them in full', async () => {
+    const { out } = await run(['pair', 'He', 'Ar']);
+    const line = out.split('\n').find((l) => l.startsWith('  A  He:'))!;
+    expect(line.length).toBeLessThan(400);
+    expect(line).toMatch(/\[recommended helium: .*response rescaled to published alpha, C6, C8, C10, B \(full sources: dispole species\)\]/);
+    expect(line).toMatch(/tail alpha→[\d.]+\/u²/); // the fitted tail coefficient, not an electron count
+    expect(line).not.toMatch(/Yan|Bishop/);
+    const listing = (await run(['species'])).out;
+    expect(listing).toMatch(/Bishop/);
+  });
   test('each recommended atom reproduces its published alpha and C6 (and B where published) exactly (sources in atom-library.ts)', async () => {
     for (const a of ATOM_LIBRARY) {
       const rec = recommendedAtomBySymbol(a.symbol);

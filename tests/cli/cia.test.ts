@@ -44,6 +44,17 @@ describe('dispole cia', () => {
     expect(out).toMatch(/sign convention: mu\(R\) along \+z/);
     expect(out).toMatch(/All numbers converged\./);
   });
+  test('the header shows the pair\'s C6…C10, D7 and D9 to --digits in text; JSON keeps them at full precision', async () => {
+    const text = (await run([...BASE, '--temperature', '150', '--digits', '4'])).out;
+    const json = JSON.parse((await run([...BASE, '--temperature', '150', '--json'])).out);
+    const C6 = Number(/C6 = ([-\d.e+]+)/.exec(json.potential.label)![1]);
+    expect(String(C6).replace(/[-.]/g, '').length).toBeGreaterThan(8); // computed, not a short input
+    const shown = /C6 = ([-\d.e+]+),/.exec(text)![1];
+    expect(shown.replace(/[-.]/g, '').replace(/^0+/, '').length).toBeLessThanOrEqual(4);
+    expectClose(Number(shown), C6, 5e-4);
+    expect(/D7 = ([-\d.e+]+)/.exec(text)![1].replace(/[-.]/g, '').length).toBeLessThanOrEqual(4);
+    expect(text).toMatch(/A = 60 Eh, b = 1\.75 1\/bohr/); // the user's own numbers as given
+  });
   test('--spectrum with --csv and --svg: spectrum rows, a figure, the progress bar stays off without a terminal', async () => {
     const { code, out, err, files } = await run([...BASE, '--temperature', '100', '--spectrum', '0:3000:100', '--csv', '--svg', 'cia.svg']);
     expect(code).toBe(0);

@@ -174,7 +174,7 @@ describe('reading input files', () => {
 });
 
 describe('output streams of the command (built CLI)', () => {
-  const bin = join(DIST, 'cli/bin.js');
+  const bin = join(DIST, 'cli/bin.cjs');
 
   test('a closed pipe ends quietly with exit 0 (as in dispole table … | head -1)', async () => {
     const child = spawn(process.execPath, [bin, 'table', 'Quelon', 'Virid', '--routes', 'perturbation'], { stdio: ['ignore', 'pipe', 'pipe'] });

@@ -95,7 +95,7 @@ describe('dispole pair bad input: exit 2, nothing on stdout', () => {
 });
 
 describe('the built command', () => {
-  const bin = 'dist/cli/bin.js';
+  const bin = 'dist/cli/bin.cjs';
   test('runs end to end as a process (after `npm run build`)', () => {
     expect(existsSync(bin), 'npm test builds dist/ first').toBe(true);
     const out = execFileSync('node', [bin, 'pair', 'Quelon', 'Virid', '--json'], { encoding: 'utf8' });

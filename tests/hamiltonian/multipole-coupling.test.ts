@@ -1,3 +1,4 @@
+import Fraction from 'fraction.js';
 import { describe, expect, test } from 'vitest';
 import { couplingTerms } from '../../src/hamiltonian/multipole-coupling.js';
 import { drudeCouplingEnergy, drudeCouplingPolynomial, drudeExactCoulomb } from '../../src/hamiltonian/drude-polynomial.js';
@@ -40,6 +41,42 @@ describe('Taylor coefficients of 1/|ẑ + d|', () => {
         expectClose(s, legendreTerm(l, 1, d), 1e-12, 1e-14, `degree ${l}`);
       }
     }
+  });
+});
+
+/**
+ * The binomial series Σ_k binom(−1/2, k) t^k, t = 2 d_z + d·d, expanded by exact polynomial multiplication and
+ * truncated at degree N (the textbook route the closed form in inverse-distance-taylor.ts was derived from).
+ */
+function seriesByMultiplication(N: number): Map<string, Fraction> {
+  type Poly = Map<string, { e: number[]; c: Fraction }>;
+  const t: Poly = new Map([[[0, 0, 1], 2], [[2, 0, 0], 1], [[0, 2, 0], 1], [[0, 0, 2], 1]].map(([e, c]) => [String(e), { e: e as number[], c: new Fraction(c as number) }]));
+  const out = new Map<string, Fraction>([['0,0,0', new Fraction(1)]]);
+  let power: Poly = new Map([['0,0,0', { e: [0, 0, 0], c: new Fraction(1) }]]);
+  let binom = new Fraction(1);
+  for (let k = 1; k <= N; k++) {
+    const next: Poly = new Map();
+    for (const x of power.values())
+      for (const y of t.values()) {
+        const e = [0, 1, 2].map((i) => x.e[i] + y.e[i]);
+        if (e[0] + e[1] + e[2] > N) continue;
+        const prev = next.get(String(e));
+        next.set(String(e), { e, c: prev ? prev.c.add(x.c.mul(y.c)) : x.c.mul(y.c) });
+      }
+    power = next;
+    binom = binom.mul(new Fraction(-1, 2).sub(k - 1)).div(k);
+    for (const [key, term] of power) out.set(key, (out.get(key) ?? new Fraction(0)).add(term.c.mul(binom)));
+  }
+  for (const [key, c] of out) if (c.equals(0)) out.delete(key);
+  return out;
+}
+
+describe('closed-form Taylor coefficients against the series they come from', () => {
+  test('every coefficient through degree 10 is the same exact rational as the binomial series (derived here)', () => {
+    const closed = inverseDistanceTaylor(10);
+    const series = seriesByMultiplication(10);
+    expect(closed.size).toBe(series.size);
+    for (const { p, c } of closed.values()) expect(c.equals(series.get(String(p)) ?? new Fraction(NaN)), `d^(${p})`).toBe(true);
   });
 });
 

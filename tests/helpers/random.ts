@@ -12,3 +12,10 @@ export function seededRandom(seed: number): () => number {
 
 /** A uniform number in [lo, hi) from a generator. */
 export const uniform = (rand: () => number, lo: number, hi: number): number => lo + (hi - lo) * rand();
+
+/** (B + Bᵀ)/2 for an n×n B with seeded entries uniform in [−1, 1): a random symmetric matrix, row-major. */
+export function randomSymmetric(n: number, seed: number): Float64Array {
+  const rand = seededRandom(seed);
+  const b = Float64Array.from({ length: n * n }, () => uniform(rand, -1, 1));
+  return Float64Array.from({ length: n * n }, (_, k) => 0.5 * (b[k] + b[(k % n) * n + Math.floor(k / n)]));
+}

@@ -44,23 +44,32 @@ function fillRandom(a: Float64Array, seed: number): void {
 
 describe('SIMD kernels', () => {
   test.each([
-    [1, 1, 1],
-    [2, 3, 4],
-    [5, 7, 9],
-    [4, 8, 4],
-    [33, 129, 130],
-  ])('gemm C += α A B with strided A (m = %i, cols = %i, depth = %i; odd sizes use the scalar edges)', (m, cols, depth) => {
-    const ws = new Workspace({ C: m * cols, A: depth * m, B: depth * cols });
-    const k = instantiateKernels(ws.memory);
-    const Cm = ws.view('C'), A = ws.view('A'), B = ws.view('B');
-    fillRandom(Cm, 1 + m);
-    fillRandom(A, 2 + cols);
-    fillRandom(B, 3 + depth);
-    const before = Float64Array.from(Cm);
-    // A(i, p) = A[p·m + i]: a transposed operand, as in W = Uᵀ Z
-    k.gemm(ws.at('C'), cols * 8, ws.at('A'), 8, m * 8, ws.at('B'), cols * 8, m, cols, depth, -1.5);
-    const ref = plainProduct(m, cols, depth, (i, p) => A[p * m + i], (p, j) => B[p * cols + j]);
-    for (let e = 0; e < m * cols; e++) expectClose(Cm[e], before[e] - 1.5 * ref.value[e], 0, 4 * (ref.bound[e] + EPS), `C entry ${e}`);
+    ['gemm', 1, 1, 1],
+    ['gemm', 2, 3, 4],
+    ['gemm', 5, 7, 9],
+    ['gemm', 4, 8, 4],
+    ['gemm', 33, 129, 130],
+    ['gemmTile', 1, 1, 1],
+    ['gemmTile', 1, 7, 5],
+    ['gemmTile', 5, 6, 3],
+    ['gemmTile', 9, 1, 70],
+    ['gemmTile', 33, 130, 64],
+  ] as const)('%s C += α A B against plain loops (m = %i, cols = %i, depth = %i; odd sizes use the edges), A read transposed and row-wise', (kernel, m, cols, depth) => {
+    for (const transposed of [true, false]) {
+      const ws = new Workspace({ C: m * cols, A: depth * m, B: depth * cols });
+      const k = instantiateKernels(ws.memory);
+      const Cm = ws.view('C'), A = ws.view('A'), B = ws.view('B');
+      fillRandom(Cm, 1 + m);
+      fillRandom(A, 2 + cols);
+      fillRandom(B, 3 + depth);
+      const before = Float64Array.from(Cm);
+      // transposed: A(i, p) = A[p·m + i], as in W = Uᵀ Z; row-wise: A(i, p) = A[i·depth + p], as in Z −= U W
+      const aOf = transposed ? (i: number, p: number) => A[p * m + i] : (i: number, p: number) => A[i * depth + p];
+      const [aRow, aCol] = transposed ? [8, m * 8] : [depth * 8, 8];
+      k[kernel](ws.at('C'), cols * 8, ws.at('A'), aRow, aCol, ws.at('B'), cols * 8, m, cols, depth, -1.5);
+      const ref = plainProduct(m, cols, depth, aOf, (p, j) => B[p * cols + j]);
+      for (let e = 0; e < m * cols; e++) expectClose(Cm[e], before[e] - 1.5 * ref.value[e], 0, 4 * (1.5 * ref.bound[e] + EPS), `C entry ${e}`);
+    }
   });
 
   test('tridiagonalPass: the rank-2 update of the trailing lower triangle and p = A22 v, in two row ranges (the upper triangle is never touched)', () => {
@@ -82,6 +91,33 @@ describe('SIMD kernels', () => {
     K.tridiagonalPass(ws.at('A'), n, k, 8, n, ws.at('vp'), ws.at('wp'), ws.at('v'), ws.at('p'));
     expect(Array.from(A)).toEqual(Array.from(ref)); // same rounding: x = A − (vp_i wp_j + wp_i vp_j) in both
     for (let i = 0; i < n; i++) expectClose(p[i], pRef[i], 0, 16 * n * EPS, `p${i}`);
+    for (let i = 0; i <= k; i++) expect(p[i]).toBe(0);
+  });
+
+  test('symmetricProduct: p += A22 v from the lower triangle in row ranges of blocks of four and single rows, A unchanged, upper triangle never read', () => {
+    const n = 17, k = 2;
+    const ws = new Workspace({ A: n * n, v: n, p: n });
+    const K = instantiateKernels(ws.memory);
+    const A = ws.view('A'), v = ws.view('v'), p = ws.view('p');
+    fillRandom(A, 31);
+    fillRandom(v, 32);
+    for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) A[i * n + j] = NaN;
+    const before = Float64Array.from(A);
+    const pRef = new Float64Array(n), bound = new Float64Array(n);
+    for (let i = k + 1; i < n; i++)
+      for (let j = k + 1; j <= i; j++) {
+        pRef[i] += A[i * n + j] * v[j];
+        bound[i] += Math.abs(A[i * n + j] * v[j]);
+        if (j < i) {
+          pRef[j] += A[i * n + j] * v[i];
+          bound[j] += Math.abs(A[i * n + j] * v[i]);
+        }
+      }
+    // ranges of 6 rows (one block of four, two single rows) and 8 rows (two blocks)
+    K.symmetricProduct(ws.at('A'), n, k, k + 1, 9, ws.at('v'), ws.at('p'));
+    K.symmetricProduct(ws.at('A'), n, k, 9, n, ws.at('v'), ws.at('p'));
+    expect(bytes(A).equals(bytes(before))).toBe(true);
+    for (let i = 0; i < n; i++) expectClose(p[i], pRef[i], 0, 4 * n * EPS * bound[i] + 1e-300, `p${i}`);
     for (let i = 0; i <= k; i++) expect(p[i]).toBe(0);
   });
 });

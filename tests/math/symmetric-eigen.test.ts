@@ -7,18 +7,11 @@ import { afterAll, describe, expect, test } from 'vitest';
 import { symmetricEigen } from '../../src/math/symmetric-eigen.js';
 import { ThreadTeam } from '../../src/math/thread-team.js';
 import { expectClose } from '../helpers/tolerance.js';
-import { seededRandom, uniform } from '../helpers/random.js';
+import { randomSymmetric, seededRandom } from '../helpers/random.js';
 
 const EPS = 2 ** -52;
 /** Tolerance factor on n ε ‖A‖ (common practice: a small constant in front of the backward-error bound). */
 const C = 10;
-
-/** (B + Bᵀ)/2 for B with seeded entries uniform in [−1, 1). */
-function randomSymmetric(n: number, seed: number): Float64Array {
-  const rand = seededRandom(seed);
-  const b = Float64Array.from({ length: n * n }, () => uniform(rand, -1, 1));
-  return Float64Array.from({ length: n * n }, (_, k) => 0.5 * (b[k] + b[(k % n) * n + Math.floor(k / n)]));
-}
 
 /** A random orthogonal Q (product of n seeded Householder reflectors) as a row-major array. */
 function randomOrthogonal(n: number, seed: number): Float64Array {

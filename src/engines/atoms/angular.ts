@@ -33,59 +33,75 @@ function associatedLegendre(x: number, lMax: number): number[][] {
 /** Index of (l, m) in a flat list: l² + l + m. */
 export const harmonicIndex = (l: number, m: number): number => l * l + l + m;
 
-interface SphereGrid {
+/**
+ * The product rule's two factors. On the grid (θ_i, φ_j) every integrand here is a product of a θ part and a φ
+ * part — S_lm = N_lm P_l^|m|(cos θ) T_m(φ), x̂^a ŷ^b ẑ^c = sin^(a+b)θ cos^c θ · cos^a φ sin^b φ — so the double sum
+ * is the product of two single sums (derived here: the weights are products too): 16 + 32 terms per factor
+ * instead of 512.
+ */
+interface SphereRule {
+  /** Gauss–Legendre weights and cos θ_i, sin θ_i. */
   weight: Float64Array;
-  x: Float64Array;
-  y: Float64Array;
-  z: Float64Array;
-  /** harmonics[harmonicIndex(l, m)][point] */
-  harmonics: Float64Array[];
+  cos: Float64Array;
+  sin: Float64Array;
+  /** legendre[l][|m|][i] = N_l|m| P_l^|m|(cos θ_i) */
+  legendre: Float64Array[][];
+  /** azimuth[m + ANGULAR_L_MAX][j] = T_m(φ_j), and cos φ_j, sin φ_j */
+  azimuth: Float64Array[];
+  cosPhi: Float64Array;
+  sinPhi: Float64Array;
 }
 
-let grid: SphereGrid | undefined;
+let rule: SphereRule | undefined;
 
-function sphereGrid(): SphereGrid {
-  if (grid) return grid;
+function sphereRule(): SphereRule {
+  if (rule) return rule;
   const gl = gaussLegendre(N_THETA);
-  const count = N_THETA * N_PHI;
-  const weight = new Float64Array(count), x = new Float64Array(count), y = new Float64Array(count), z = new Float64Array(count);
-  const nh = (ANGULAR_L_MAX + 1) ** 2;
-  const harmonics = Array.from({ length: nh }, () => new Float64Array(count));
-  // the normalisations N_lm and the azimuthal factors, once per (l, |m|) and per (φ_j, m) instead of per point
-  const norms = Array.from({ length: ANGULAR_L_MAX + 1 }, (_, l) =>
-    Array.from({ length: l + 1 }, (_, am) => Math.sqrt(((2 * l + 1) / (4 * Math.PI)) * (factorial(l - am) / factorial(l + am)))),
-  );
-  const trigs = Array.from({ length: N_PHI }, (_, j) => {
-    const phi = (2 * Math.PI * j) / N_PHI;
-    return Array.from({ length: 2 * ANGULAR_L_MAX + 1 }, (_, mi) => {
-      const m = mi - ANGULAR_L_MAX, am = Math.abs(m);
-      return m === 0 ? 1 : m > 0 ? Math.SQRT2 * Math.cos(m * phi) : Math.SQRT2 * Math.sin(am * phi);
-    });
-  });
-  const legendre = Array.from({ length: N_THETA }, (_, i) => associatedLegendre(gl.nodes[i], ANGULAR_L_MAX));
-  for (let i = 0, k = 0; i < N_THETA; i++) {
-    const ct = gl.nodes[i];
-    const st = Math.sqrt(1 - ct * ct);
-    for (let j = 0; j < N_PHI; j++, k++) {
-      const phi = (2 * Math.PI * j) / N_PHI;
-      weight[k] = (gl.weights[i] * 2 * Math.PI) / N_PHI;
-      x[k] = st * Math.cos(phi);
-      y[k] = st * Math.sin(phi);
-      z[k] = ct;
-    }
+  const cos = Float64Array.from(gl.nodes), sin = cos.map((c) => Math.sqrt(1 - c * c));
+  const legendre = Array.from({ length: ANGULAR_L_MAX + 1 }, () => Array.from({ length: ANGULAR_L_MAX + 1 }, () => new Float64Array(N_THETA)));
+  const norm = (l: number, am: number) => Math.sqrt(((2 * l + 1) / (4 * Math.PI)) * (factorial(l - am) / factorial(l + am)));
+  for (let i = 0; i < N_THETA; i++) {
+    const P = associatedLegendre(cos[i], ANGULAR_L_MAX);
+    for (let l = 0; l <= ANGULAR_L_MAX; l++) for (let am = 0; am <= l; am++) legendre[l][am][i] = norm(l, am) * P[l][am];
   }
-  // one harmonic at a time over all points (point k = i·N_PHI + j): a short, tight loop per table row
-  for (let l = 0; l <= ANGULAR_L_MAX; l++)
-    for (let m = -l; m <= l; m++) {
-      const am = Math.abs(m), norm = norms[l][am], mi = m + ANGULAR_L_MAX;
-      const h = harmonics[harmonicIndex(l, m)];
-      for (let i = 0, k = 0; i < N_THETA; i++) {
-        const p = legendre[i][l][am];
-        for (let j = 0; j < N_PHI; j++, k++) h[k] = norm * p * trigs[j][mi];
-      }
-    }
-  grid = { weight, x, y, z, harmonics };
-  return grid;
+  const cosPhi = new Float64Array(N_PHI), sinPhi = new Float64Array(N_PHI);
+  const azimuth = Array.from({ length: 2 * ANGULAR_L_MAX + 1 }, () => new Float64Array(N_PHI));
+  for (let j = 0; j < N_PHI; j++) {
+    const phi = (2 * Math.PI * j) / N_PHI;
+    cosPhi[j] = Math.cos(phi);
+    sinPhi[j] = Math.sin(phi);
+    for (let m = -ANGULAR_L_MAX; m <= ANGULAR_L_MAX; m++)
+      azimuth[m + ANGULAR_L_MAX][j] = m === 0 ? 1 : m > 0 ? Math.SQRT2 * Math.cos(m * phi) : Math.SQRT2 * Math.sin(-m * phi);
+  }
+  rule = { weight: Float64Array.from(gl.weights), cos, sin, legendre, azimuth, cosPhi, sinPhi };
+  return rule;
+}
+
+/** values[j] ** e for each exponent e, built on first use (the same doubles as raising each time). */
+function powerTable(values: Float64Array): (e: number) => Float64Array {
+  const byExponent: Float64Array[] = [];
+  return (e) => (byExponent[e] ??= values.map((x) => x ** e));
+}
+type Powers = (e: number) => Float64Array;
+let powers: { cosPhi: Powers; sinPhi: Powers; cos: Powers; sin: Powers } | undefined;
+/** Powers of cos φ_j, sin φ_j, cos θ_i, sin θ_i. */
+function powersOf(g: SphereRule) {
+  return (powers ??= { cosPhi: powerTable(g.cosPhi), sinPhi: powerTable(g.sinPhi), cos: powerTable(g.cos), sin: powerTable(g.sin) });
+}
+
+/** (2π/N_φ) Σ_j T_m(φ_j) T_m'(φ_j) cos^a φ_j sin^b φ_j, cached per (m, m', a, b). */
+const azimuthCache = new Map<number, number>();
+function azimuthFactor(g: SphereRule, m: number, mp: number, a: number, b: number): number {
+  const key = (((m + 16) * 32 + (mp + 16)) * 32 + a) * 32 + b;
+  const hit = azimuthCache.get(key);
+  if (hit !== undefined) return hit;
+  const t = g.azimuth[m + ANGULAR_L_MAX], tp = g.azimuth[mp + ANGULAR_L_MAX];
+  const ca = powersOf(g).cosPhi(a), sb = powersOf(g).sinPhi(b);
+  let s = 0;
+  for (let j = 0; j < N_PHI; j++) s += t[j] * tp[j] * ca[j] * sb[j];
+  const value = (2 * Math.PI * s) / N_PHI;
+  azimuthCache.set(key, value);
+  return value;
 }
 
 /** One nonzero angular factor <l' m'| x̂^a ŷ^b ẑ^c |l m>. */
@@ -107,16 +123,23 @@ export function angularTerms(p: Monomial, l: number, m: number, lMax: number): r
   if (hit) return hit;
   const k = p[0] + p[1] + p[2];
   if (l + lMax + k > 31 || lMax > ANGULAR_L_MAX || l > ANGULAR_L_MAX) throw new RangeError('angular degree beyond the exact product rule');
-  const g = sphereGrid();
-  const f = new Float64Array(g.weight.length);
-  const src = g.harmonics[harmonicIndex(l, m)];
-  for (let i = 0; i < f.length; i++) f[i] = g.weight[i] * src[i] * g.x[i] ** p[0] * g.y[i] ** p[1] * g.z[i] ** p[2];
+  const g = sphereRule();
+  // θ part of the integrand without the partner: w_i N P_l^|m| sin^(a+b) cos^c
+  const f = new Float64Array(N_THETA);
+  const src = g.legendre[l][Math.abs(m)];
+  const sq = powersOf(g).sin(p[0] + p[1]), cr = powersOf(g).cos(p[2]);
+  for (let i = 0; i < N_THETA; i++) f[i] = g.weight[i] * src[i] * sq[i] * cr[i];
   const out: AngularTerm[] = [];
   for (let lp = (l + k) % 2; lp <= Math.min(lMax, l + k); lp += 2) {
     for (let mp = -lp; mp <= lp; mp++) {
-      const h = g.harmonics[harmonicIndex(lp, mp)];
-      let s = 0;
-      for (let i = 0; i < f.length; i++) s += f[i] * h[i];
+      // |θ factor| ≤ 1/(2π) (Cauchy–Schwarz with the normalisation of both harmonics), so a φ factor ≤ 1e-13 makes
+      // the product fall below the zero threshold whatever the θ factor: skip the θ sum
+      const phi = azimuthFactor(g, m, mp, p[0], p[1]);
+      if (Math.abs(phi) <= 1e-13) continue;
+      const h = g.legendre[lp][Math.abs(mp)];
+      let theta = 0;
+      for (let i = 0; i < N_THETA; i++) theta += f[i] * h[i];
+      const s = theta * phi;
       if (Math.abs(s) > 1e-13) out.push({ l: lp, m: mp, value: s });
     }
   }
@@ -124,8 +147,17 @@ export function angularTerms(p: Monomial, l: number, m: number, lMax: number): r
   return out;
 }
 
-/** <l' 0| P_L(cos θ) |l 0> = 2π ∫ N_l'0 N_l0 P_l' P_L P_l d(cos θ), exact by Gauss–Legendre. */
+const couplingCache = new Map<number, number>();
+
+/** <l' 0| P_L(cos θ) |l 0> = 2π ∫ N_l'0 N_l0 P_l' P_L P_l d(cos θ), exact by Gauss–Legendre. Cached. */
 export function legendreCoupling(lp: number, L: number, l: number): number {
+  const key = (lp * 64 + L) * 64 + l;
+  let value = couplingCache.get(key);
+  if (value === undefined) couplingCache.set(key, (value = legendreCouplingSum(lp, L, l)));
+  return value;
+}
+
+function legendreCouplingSum(lp: number, L: number, l: number): number {
   const gl = gaussLegendre(N_THETA);
   let s = 0;
   for (let i = 0; i < N_THETA; i++) {

@@ -5,9 +5,8 @@
  */
 import type { HydrogenicSpecies } from '../../model/hydrogenic.js';
 import type { LocalSpace } from '../perturbation/local-space.js';
-import { isotropicResponseCoefficients } from '../response/isotropic-kernel.js';
 import type { IsotropicResponse } from '../response/response-model.js';
-import { linesProductIntegral, pseudoStateResponse, type StaticAtomProperties } from './pseudo-state-response.js';
+import { likePairD7a, linesProductIntegral, pseudoStateResponse, type StaticAtomProperties } from './pseudo-state-response.js';
 import { pseudoStateSpace } from './pseudo-state-space.js';
 import { hydrogenicSpectrum } from './sturmian-spectrum.js';
 
@@ -41,14 +40,13 @@ export interface LikePairValues {
   D7a: number;
 }
 
-/** The like pair's C6, C8 (closed-form sums) and D7.a (quadrature) for one basis size. */
+/** The like pair's C6, C8 and D7.a (closed-form sums over the pseudo-states, no quadrature) for one basis size. */
 export function hydrogenicLikePair(Z: number, basis: number): LikePairValues {
   const r = pseudoStateResponse(hydrogenicSpectrum(Z, basis, HYDROGENIC_L_MAX));
   const [l1, l2] = r.lines;
   const C6 = (3 / Math.PI) * linesProductIntegral(l1, l1);
   const C8 = (15 / Math.PI) * linesProductIntegral(l1, l2);
-  const D7a = isotropicResponseCoefficients(r, r).D7a;
-  return { basis, C6, C8, D7a };
+  return { basis, C6, C8, D7a: likePairD7a(r) };
 }
 
 /** The basis check: like-pair values at the species' basis and at a smaller one, with relative changes. */

@@ -3,11 +3,11 @@
  * returned in scaled form W_i = w_i e^{x_i} so that ∫_0^∞ f(x) dx = Σ_i W_i f(x_i) for f = e^{-x} × polynomial
  * without overflow (common practice; e.g. Numerical Recipes §4.6).
  *
- * Nodes: eigenvalues of the Jacobi matrix of the Laguerre polynomials (Golub & Welsch, Math. Comp. 23, 221 (1969)),
- * polished by Newton steps on L_M. Weights from the Christoffel function, W_i = 1 / Σ_{n<M} ℓ_n(x_i)², with the
+ * Nodes: eigenvalues of the (tridiagonal) Jacobi matrix of the Laguerre polynomials (Golub & Welsch, Math. Comp. 23,
+ * 221 (1969)), polished by Newton steps on L_M. Weights from the Christoffel function, W_i = 1 / Σ_{n<M} ℓ_n(x_i)², with the
  * orthonormal Laguerre functions ℓ_n(x) = e^{-x/2} L_n(x), which stay bounded (no factorials, no overflow).
  */
-import { symmetricEigen } from '../../math/symmetric-eigen.js';
+import { tridiagonalEigenvalues } from '../../math/symmetric-eigen.js';
 
 export interface LaguerreRule {
   nodes: Float64Array;
@@ -39,12 +39,10 @@ export function gaussLaguerre(M: number): LaguerreRule {
   const hit = cache.get(M);
   if (hit) return hit;
   if (!Number.isInteger(M) || M < 1 || M > 400) throw new RangeError(`Gauss–Laguerre order must be 1…400, got ${M}`);
-  const J = new Float64Array(M * M);
-  for (let i = 0; i < M; i++) {
-    J[i * M + i] = 2 * i + 1;
-    if (i > 0) J[i * M + i - 1] = J[(i - 1) * M + i] = i;
-  }
-  const guesses = symmetricEigen(J, M, { vectors: false }).values;
+  // the Jacobi matrix: diagonal 2i + 1, off-diagonal i + 1 (row i + 1, column i)
+  const diagonal = Float64Array.from({ length: M }, (_, i) => 2 * i + 1);
+  const offDiagonal = Float64Array.from({ length: M }, (_, i) => (i + 1 < M ? i + 1 : 0));
+  const guesses = tridiagonalEigenvalues(diagonal, offDiagonal);
   const nodes = new Float64Array(M);
   const scaledWeights = new Float64Array(M);
   guesses.forEach((guess, i) => {

@@ -79,6 +79,8 @@ interface HyperBTerms {
   a2: Float64Array;
   /** c[n·size + k], n ∈ p, k ∈ d (from T3) */
   c3: Float64Array;
+  /** Scratch for 1/(ω_dk² + u²) (one evaluation at a time; JavaScript runs them one after another). */
+  dd: Float64Array;
 }
 
 function hyperBTerms(s: RadialPseudoSpectrum): HyperBTerms {
@@ -103,14 +105,15 @@ function hyperBTerms(s: RadialPseudoSpectrum): HyperBTerms {
     a2[n] = mu0p[n] * s2;
     for (let k = 0; k < size; k++) c3[n * size + k] = mu0p[n] * mupd(n, k) * Qd0[k];
   }
-  return { wp, wd, a1, a2, c3 };
+  return { wp, wd, a1, a2, c3, dd: new Float64Array(size) };
 }
 
 /** B(0; iu, −iu) from its terms: 2 Re[T1 + T2 + T3](iu). */
 function evaluateHyperB(t: HyperBTerms, u: number): number {
   const u2 = u * u;
   const size = t.wp.length;
-  const dd = Float64Array.from(t.wd, (w) => 1 / (w * w + u2));
+  const dd = t.dd;
+  for (let k = 0; k < size; k++) dd[k] = 1 / (t.wd[k] * t.wd[k] + u2);
   let s = 0;
   for (let n = 0; n < size; n++) {
     s += (t.a1[n] * t.wd[n]) * dd[n];
@@ -121,6 +124,29 @@ function evaluateHyperB(t: HyperBTerms, u: number): number {
     s += row * pn;
   }
   return 2 * s;
+}
+
+/**
+ * ∫_0^∞ B(0; iu, −iu) alpha(iu) du in closed form, for B from these terms and alpha = Σ_i g_i/(ω_i² + u²) (derived
+ * here): with ∫_0^∞ du/((a² + u²)(c² + u²)) = π/(2ac(a + c)) and ∫_0^∞ (ab − u²) du/((a² + u²)(b² + u²)(c² + u²)) =
+ * π/(2c(a + c)(b + c)) (partial fractions),
+ *   ∫ B alpha du = π Σ_i (g_i/ω_i) [Σ_n a1_n/(ω_dn + ω_i) + Σ_n a2_n/(ω_pn + ω_i) + Σ_nk c3_nk/((ω_pn + ω_i)(ω_dk + ω_i))].
+ */
+function hyperBLinesIntegral(t: HyperBTerms, lines: OscillatorLines): number {
+  const size = t.wp.length;
+  let total = 0;
+  for (let i = 0; i < lines.omega.length; i++) {
+    const w = lines.omega[i];
+    let s = 0;
+    for (let n = 0; n < size; n++) {
+      s += t.a1[n] / (t.wd[n] + w) + t.a2[n] / (t.wp[n] + w);
+      let row = 0;
+      for (let k = 0; k < size; k++) row += t.c3[n * size + k] / (t.wd[k] + w);
+      s += row / (t.wp[n] + w);
+    }
+    total += (lines.g[i] / w) * s;
+  }
+  return Math.PI * total;
 }
 
 /** Static second hyperpolarisability gamma (Wigner 2n+1 chain, see the module comment), e⁴a0⁴/Eh³. */
@@ -158,6 +184,17 @@ export interface StaticAtomProperties {
 }
 
 const responseCache = new WeakMap<RadialPseudoSpectrum, IsotropicResponse & { statics: StaticAtomProperties; lines: OscillatorLines[] }>();
+const termsOf = new WeakMap<IsotropicResponse, HyperBTerms>();
+
+/**
+ * D7.a of the like pair of a pseudo-state response ({@link pseudoStateResponse}), (9/π) ∫ B(0; iu, −iu) alpha_1(iu) du
+ * (the response route's formula, isotropic-kernel.ts), as the closed-form sum of hyperBLinesIntegral: no quadrature.
+ */
+export function likePairD7a(r: IsotropicResponse & { lines: OscillatorLines[] }): number {
+  const terms = termsOf.get(r);
+  if (!terms) throw new Error('likePairD7a needs a response made by pseudoStateResponse');
+  return (9 / Math.PI) * hyperBLinesIntegral(terms, r.lines[0]);
+}
 
 /** The isotropic response functions of a one-electron atom (lMax ≥ 3 needed for alpha_3). */
 export function pseudoStateResponse(s: RadialPseudoSpectrum): IsotropicResponse & { statics: StaticAtomProperties; lines: OscillatorLines[] } {
@@ -166,14 +203,31 @@ export function pseudoStateResponse(s: RadialPseudoSpectrum): IsotropicResponse 
   if (s.lMax < 3) throw new RangeError('pseudo-state response needs lMax ≥ 3 (octupole polarisability)');
   const lines = [1, 2, 3].map((l) => multipoleLines(s, l));
   const terms = hyperBTerms(s);
-  const alphaStatic = lines.map((L) => evaluateLines(L, 0)) as [number, number, number];
+  let statics: StaticAtomProperties | undefined;
+  // the last frequency's values are kept: a like pair's quadrature asks for each one twice (once per centre)
+  const lastU = [NaN, NaN, NaN, NaN], lastValue = [0, 0, 0, 0];
+  const remembered = (slot: number, u: number, evaluate: () => number): number => {
+    if (lastU[slot] !== u) {
+      lastValue[slot] = evaluate();
+      lastU[slot] = u;
+    }
+    return lastValue[slot];
+  };
   const r = {
-    alpha: (l: 1 | 2 | 3, u: number) => evaluateLines(lines[l - 1], u),
-    hyperB: (u: number) => evaluateHyperB(terms, u),
+    alpha: (l: 1 | 2 | 3, u: number) => (l === 1 || l === 2 || l === 3 ? remembered(l, u, () => evaluateLines(lines[l - 1], u)) : evaluateLines(lines[l - 1], u)),
+    hyperB: (u: number) => remembered(0, u, () => evaluateHyperB(terms, u)),
     scale: lines[0].omega[0],
     lines,
-    statics: { alpha: alphaStatic, B: evaluateHyperB(terms, 0), gamma: secondHyperpolarisability(s) },
+    /** Computed on first use (no route needs them). */
+    get statics(): StaticAtomProperties {
+      return (statics ??= {
+        alpha: lines.map((L) => evaluateLines(L, 0)) as [number, number, number],
+        B: evaluateHyperB(terms, 0),
+        gamma: secondHyperpolarisability(s),
+      });
+    },
   };
   responseCache.set(s, r);
+  termsOf.set(r, terms);
   return r;
 }

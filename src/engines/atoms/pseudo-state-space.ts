@@ -46,10 +46,10 @@ export function pseudoStateSpace(spectrum: RadialPseudoSpectrum): LocalSpace {
       const states: number[] = [];
       const amps: number[] = [];
       for (const t of angularTerms(p, l, m, lMax)) {
-        const R = spectrum.radial(t.l, l, k);
+        const R = spectrum.radialColumn(t.l, l, k, n);
         const base = pseudoStateIndex(t.l, t.m, 0, size);
         for (let np = 0; np < size; np++) {
-          const amp = -t.value * R[np * size + n];
+          const amp = -t.value * R[np];
           if (amp === 0) continue;
           states.push(base + np);
           amps.push(amp);

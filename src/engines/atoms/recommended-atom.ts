@@ -176,6 +176,10 @@ export function rescaledResponse(r: DataResponse, f: RescalingFactors, name: str
 export function recommendedAtom(record: AtomRecord, data: FirstPrinciplesResponse): RecommendedAtom {
   const unscaled = firstPrinciplesTable(data, `${record.symbol}-tdhf`, `${record.name}: ${data.level} (${data.basis}), no empirical input`);
   const factors = rescalingFactors(record, unscaled);
-  const species = rescaledTable(unscaled, factors, record.symbol, rescaledSource(record, data, factors));
+  const fitted = ['alpha', 'C6', 'C8', ...(factors.s3From === 'C10' && record.C10 ? ['C10'] : []), ...(record.B ? ['B'] : [])];
+  const species: ResponseTableSpecies = {
+    ...rescaledTable(unscaled, factors, record.symbol, rescaledSource(record, data, factors)),
+    sourceBrief: `recommended ${record.name}: ${data.level} response rescaled to published ${fitted.join(', ')} (full sources: dispole species)`,
+  };
   return { record, data, factors, species, unscaled, response: rescaledResponse(responseTableResponse(unscaled), factors, record.symbol) };
 }

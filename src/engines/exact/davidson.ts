@@ -146,14 +146,20 @@ export function davidsonLowest(A: SymmetricOperator, options: DavidsonOptions = 
  * mixing of Davidson, each component is corrected with the relative precision of its own size, so small
  * components (such as the R^-7 dipole amplitudes at large R) come out with all their digits.
  * The residual norm is ruled by the large components and stalls at their rounding level while the small ones
- * are still settling, so the sweeps go on for `extraSweeps` after the norm stops halving. It stops early if the
- * sweeps diverge (strong coupling) and then returns the best vector seen.
+ * may still be settling, so the sweeps go on for `extraSweeps` after the norm stops halving — or, when the caller
+ * names the quantities it needs (`watch`: values of the normalised vector, e.g. expectation values), only until
+ * those have stopped changing (by at most a few units of rounding, two sweeps running) and the norm has stalled.
+ * It stops early if the sweeps diverge (strong coupling) and then returns the best vector seen.
  */
 export function polishEigenvector(
   A: SymmetricOperator,
   start: DavidsonResult,
   tolerance: number,
-  { maxSweeps = 80, extraSweeps = 8 }: { maxSweeps?: number; extraSweeps?: number } = {},
+  {
+    maxSweeps = 80,
+    extraSweeps = 8,
+    watch,
+  }: { maxSweeps?: number; extraSweeps?: number; watch?: (x: Float64Array, norm2: number) => readonly number[] } = {},
 ): DavidsonResult {
   const n = A.size;
   const D = A.diagonal;
@@ -165,6 +171,9 @@ export function polishEigenvector(
   let previous = start.residualNorm;
   let lowest = start.residualNorm;
   let stalled = 0;
+  let watched: readonly number[] | undefined;
+  let steady = 0;
+  const bestVector = new Float64Array(n); // the best vector so far, overwritten in place
   for (let sweep = 1; sweep <= maxSweeps; sweep++) {
     A.apply(x, Ax);
     const norm2 = dot(x, x);
@@ -176,9 +185,10 @@ export function polishEigenvector(
     lowest = Math.min(lowest, residualNorm);
     if (residualNorm <= 2 * lowest) {
       const scale = 1 / Math.sqrt(norm2);
+      for (let i = 0; i < n; i++) bestVector[i] = x[i] * scale;
       best = {
         value: theta,
-        vector: Float64Array.from(x, (v) => v * scale),
+        vector: bestVector,
         residualNorm,
         iterations: start.iterations + sweep,
         converged: residualNorm <= tolerance,
@@ -186,6 +196,15 @@ export function polishEigenvector(
     }
     stalled = residualNorm < 0.5 * previous ? 0 : stalled + 1;
     if (stalled > extraSweeps) break;
+    if (watch) {
+      const now = watch(x, norm2);
+      const size = Math.max(...now.map(Math.abs));
+      const still = watched !== undefined && now.every((v, i) => Math.abs(v - watched![i]) <= 8 * Number.EPSILON * size);
+      steady = still ? steady + 1 : 0;
+      watched = now;
+      // only once the residual has stalled too: before that the small components are still settling
+      if (steady >= 2 && stalled > 0 && best.iterations === start.iterations + sweep) break;
+    }
     previous = Math.min(previous, residualNorm);
     for (let i = 0; i < n; i++) {
       if (i === k) continue;

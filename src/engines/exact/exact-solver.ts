@@ -12,7 +12,7 @@ import type { DrudeSpecies } from '../../model/drude.js';
 import { solveInBasis, type BasisSolution } from './ground-state.js';
 import { basisReach, localisationCheck, type LocalisationCheck } from './localisation.js';
 import { fullProductDimension } from './pair-basis.js';
-import { exactModel, extendHamiltonian, hamiltonianAt, type ExactModel, type PairHamiltonianValues } from './pair-hamiltonian.js';
+import { exactModel, extendHamiltonian, growExactModel, hamiltonianAt, type ExactModel, type PairHamiltonianValues } from './pair-hamiltonian.js';
 
 export interface ExactOptions {
   /** Highest multipole order of the coupling (2 dipole–dipole, 3 adds dipole–quadrupole …). Default 3. */
@@ -82,10 +82,10 @@ export function exactSolver(A: DrudeSpecies, B: DrudeSpecies, options: ExactOpti
 
   const modelFor = (N: number): ExactModel => {
     if (!model || model.basis.maxQuanta < N) {
-      // grow in steps of 6 quanta; at order 7 the matrices are so dense that a step of 3 beyond N is cheaper
-      const grown = model ? (order >= 7 ? Math.max(N + 3, model.basis.maxQuanta + 1) : model.basis.maxQuanta + 6) : Math.max(start + 8, 12);
+      // a larger model keeps the rows it has and computes only the new ones, so it grows just to the N asked for
+      const grown = model ? N : Math.max(start + 8, 12);
       const cap = Math.min(maxQuanta, Math.max(N, grown));
-      model = exactModel(A, B, { order, maxQuanta: cap, reduced });
+      model = model ? growExactModel(model, cap) : exactModel(A, B, { order, maxQuanta: cap, reduced });
     }
     return model;
   };
@@ -111,7 +111,7 @@ export function exactSolver(A: DrudeSpecies, B: DrudeSpecies, options: ExactOpti
       // only the rows of the nested basis in use are filled (the model may be much larger than this point needs)
       const rows = m.basis.prefixSize[Math.min(N, m.basis.maxQuanta)];
       if (Hfor !== m) {
-        H = spare = hamiltonianAt(m, R, rows, spare);
+        H = spare = hamiltonianAt(m, R, rows, spare, 'lower');
         Hfor = m;
       } else extendHamiltonian(m, R, H!, rows);
       const guess = previous?.vector ?? (lastVector && lastVector.length <= m.basis.size ? lastVector : undefined);

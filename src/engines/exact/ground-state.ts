@@ -5,7 +5,14 @@
  */
 import { davidsonLowest, polishEigenvector, type SymmetricOperator } from './davidson.js';
 import type { ExactModel } from './pair-hamiltonian.js';
-import { expectationPrefix, multiplyPrefix } from './sparse-operator.js';
+import { denseGroup, expectationPrefix, multiplyPrefix, type SparseOperator } from './sparse-operator.js';
+
+/** Hamiltonian values at one R (from `hamiltonianAt`); `pattern` is the operator they follow (default `model.coupling`). */
+export interface HamiltonianValues {
+  values: Float64Array;
+  diagonal: Float64Array;
+  pattern?: SparseOperator;
+}
 
 export interface BasisSolution {
   /** Total quanta N of the nested basis. */
@@ -23,11 +30,12 @@ export interface BasisSolution {
 }
 
 /** The Hamiltonian at one R as a matrix-free operator on the leading `dim` functions. */
-export function prefixOperator(model: ExactModel, H: { values: Float64Array; diagonal: Float64Array }, dim: number): SymmetricOperator {
+export function prefixOperator(model: ExactModel, H: HamiltonianValues, dim: number): SymmetricOperator {
+  const pattern = H.pattern ?? model.coupling;
   return {
     size: dim,
     diagonal: H.diagonal.subarray(0, dim),
-    apply: (x, y) => multiplyPrefix(model.coupling, H.values, H.diagonal, x, y, dim),
+    apply: (x, y) => multiplyPrefix(pattern, H.values, H.diagonal, x, y, dim),
   };
 }
 
@@ -37,7 +45,7 @@ export function prefixOperator(model: ExactModel, H: { values: Float64Array; dia
  */
 export function solveInBasis(
   model: ExactModel,
-  H: { values: Float64Array; diagonal: Float64Array },
+  H: HamiltonianValues,
   quanta: number,
   tolerance: number,
   initial?: Float64Array,
@@ -50,14 +58,20 @@ export function solveInBasis(
     start.set(initial.subarray(0, Math.min(dim, initial.length)));
   }
   const coarse = davidsonLowest(op, { tolerance: Math.max(tolerance, 1e-12), initial: start });
-  const fine = polishEigenvector(op, coarse, tolerance);
+  // the polish stops once the dipoles (what the solution is for) have settled to rounding
+  const muA = denseGroup(model.dipoleA, 0), muB = denseGroup(model.dipoleB, 0);
+  const dipoles = (x: Float64Array, norm2: number) => [
+    expectationPrefix(model.dipoleA, muA, x, dim) / norm2,
+    expectationPrefix(model.dipoleB, muB, x, dim) / norm2,
+  ];
+  const fine = polishEigenvector(op, coarse, tolerance, { watch: dipoles });
   const v = fine.vector;
   return {
     quanta,
     dimension: dim,
     energy: fine.value,
-    muA: expectationPrefix(model.dipoleA, model.dipoleA.values[0], v, dim),
-    muB: expectationPrefix(model.dipoleB, model.dipoleB.values[0], v, dim),
+    muA: expectationPrefix(model.dipoleA, muA, v, dim),
+    muB: expectationPrefix(model.dipoleB, muB, v, dim),
     residual: fine.residualNorm,
     iterations: fine.iterations,
     vector: v,

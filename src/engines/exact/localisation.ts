@@ -93,16 +93,18 @@ const directionMonomials = new Map<number, Float64Array>();
 function candidateMonomials(n: number): Float64Array {
   let table = directionMonomials.get(n);
   if (!table) {
-    const { e } = couplingTermsFlat(n);
+    const { e, factor6 } = couplingTermsFlat(n);
     const terms = e.length / 6;
     const directions = candidateDirections();
     table = new Float64Array(directions.length * terms);
+    // ν_i^e at 6 e + i, by Math.pow as before (the same doubles); powers[0] = 1 pads short terms (exact)
+    const powers = new Float64Array(6 * (n + 1));
+    powers[0] = 1;
     directions.forEach((nu, d) => {
-      for (let t = 0; t < terms; t++) {
-        let m = 1;
-        for (let i = 0; i < 6; i++) if (e[6 * t + i]) m *= nu[i] ** e[6 * t + i];
-        table![d * terms + t] = m;
-      }
+      for (let x = 1; x <= n; x++) for (let i = 0; i < 6; i++) powers[6 * x + i] = nu[i] ** x;
+      for (let t = 0, f = 0; t < terms; t++, f += 6)
+        table![d * terms + t] =
+          1 * powers[factor6[f]] * powers[factor6[f + 1]] * powers[factor6[f + 2]] * powers[factor6[f + 3]] * powers[factor6[f + 4]] * powers[factor6[f + 5]];
     });
     directionMonomials.set(n, table);
   }
@@ -115,6 +117,8 @@ interface FlatTerms {
   e: Uint8Array;
   /** The factors x_i^e of term t as indices 6 e + i into a power table, i ascending: factorStart[t] … factorStart[t+1]−1. */
   factorStart: Int32Array;
+  /** The same six per term (a term has at most one factor per coordinate), padded with index 0 where the power table holds 1. */
+  factor6: Int32Array;
   factor: Int32Array;
 }
 const flatTerms = new Map<number, FlatTerms>();
@@ -130,11 +134,15 @@ function couplingTermsFlat(n: number): FlatTerms {
       t.e.forEach((e, i) => e && factor.push(6 * e + i));
     });
     factorStart[terms.length] = factor.length;
+    const factor6 = new Int32Array(6 * terms.length);
+    for (let k = 0; k < terms.length; k++)
+      for (let f = factorStart[k]; f < factorStart[k + 1]; f++) factor6[6 * k + f - factorStart[k]] = factor[f];
     flat = {
       c: Float64Array.from(terms, (t) => t.c),
       e: Uint8Array.from(terms.flatMap((t) => [...t.e])),
       factorStart,
       factor: Int32Array.from(factor),
+      factor6,
     };
     flatTerms.set(n, flat);
   }
@@ -170,33 +178,85 @@ function gridIndexAbove(x: number): number {
   return lo;
 }
 
+/** d/dτ of {@link slopeAt}: Σ_{n≥3} n (n − 2) a_n τ^(n−3). */
+function slopeDerivativeAt(a: Float64Array, order: number, tau: number): number {
+  let s = 0;
+  for (let n = order; n >= 3; n--) s = s * tau + n * (n - 2) * a[n];
+  return s;
+}
+
 /**
  * The barrier along a ray from the bracketing grid point k (slope ≤ 0 there, > 0 at every grid point before):
- * the crossing in (τ_(k−1), τ_k], by bisection, or `root` (the closed-form crossing) clamped to that interval.
+ * the crossing in (τ_(k−1), τ_k], by Newton steps kept inside the shrinking bracket (a bisection step whenever
+ * Newton would leave it; common practice) to rounding level, or `root` (the closed-form crossing) clamped to that
+ * interval.
  */
 function crossingIn(a: Float64Array, order: number, k: number, root?: number): number {
   let lo = k > 0 ? RADIAL_GRID[k - 1] : 0;
   let hi = RADIAL_GRID[k];
   if (root !== undefined) return Math.min(hi, Math.max(lo, root));
-  for (let step = 0; step < 60; step++) {
-    const mid = 0.5 * (lo + hi);
-    if (slopeAt(a, order, mid) > 0) lo = mid;
-    else hi = mid;
+  let x = 0.5 * (lo + hi);
+  for (let step = 0; step < 100; step++) {
+    const s = slopeAt(a, order, x);
+    if (s > 0) lo = x;
+    else hi = x;
+    let next = x - s / slopeDerivativeAt(a, order, x);
+    if (Math.abs(next - x) <= 2 * Number.EPSILON * x) return Math.min(hi, Math.max(lo, next)); // converged
+    if (!(next > lo && next < hi)) next = 0.5 * (lo + hi);
+    if (hi - lo <= 2 * Number.EPSILON * hi) return next;
+    x = next;
   }
-  return 0.5 * (lo + hi);
+  return x;
+}
+
+/**
+ * For orders above 4: the grid point k bracketing the first barrier of U(τ) = Σ a_n τ^n (a_2 > 0), i.e. the first
+ * grid point where the slope is ≤ 0, or −1 when there is none. The scan skips runs of grid points [τ_j, τ_l] on
+ * which the slope is provably positive: there it is at least 2 a_2 + Σ_{n≥3} n a_n τ^(n−2) with each positive term
+ * taken at τ_j and each negative one at τ_l (derived here); when that bound also exceeds 10⁻¹⁰ of the terms'
+ * magnitude, no computed slope in the run can be ≤ 0 either. Runs double while they can be skipped and shrink to
+ * single grid points near a sign change, so the same first grid point is found as by evaluating every one.
+ */
+function barrierBracket(a: Float64Array, order: number): number {
+  let negative = false;
+  for (let n = 3; n <= order; n++) negative ||= a[n] < 0;
+  if (!negative) return -1; // every term positive: the slope never turns
+  const positiveOn = (low: number, high: number): boolean => {
+    let bound = 2 * a[2], size = 2 * a[2];
+    let pLow = 1, pHigh = 1;
+    for (let n = 3; n <= order; n++) {
+      pLow *= low;
+      pHigh *= high;
+      bound += n * a[n] * (a[n] > 0 ? pLow : pHigh);
+      size += n * Math.abs(a[n]) * pHigh;
+    }
+    return bound > 1e-10 * size;
+  };
+  const last = RADIAL_GRID.length - 1;
+  let step = 16;
+  for (let k = 0; k <= last; ) {
+    const j = Math.min(last, k + step - 1);
+    if (positiveOn(RADIAL_GRID[k], RADIAL_GRID[j])) {
+      k = j + 1;
+      step *= 2;
+    } else if (step > 1) step = Math.max(1, step >> 2);
+    else if (slopeAt(a, order, RADIAL_GRID[k]) <= 0) return k;
+    else k++;
+  }
+  return -1;
 }
 
 /**
  * First maximum τ_b of U(τ) = Σ a_n τ^n (a_2 > 0): the first grid point where the slope polynomial is ≤ 0, then the
  * crossing before it. The slope is linear for order 3 and quadratic for order 4: there its roots are taken in closed
  * form (numerically stable quadratic formula; common practice) and only the grid points next to them are evaluated;
- * higher orders scan the grid and bisect.
+ * higher orders scan the grid ({@link barrierBracket}) and refine the crossing ({@link crossingIn}).
  */
 function firstBarrier(a: Float64Array, order: number): number {
   const b0 = 2 * a[2], b1 = order >= 3 ? 3 * a[3] : 0, b2 = order >= 4 ? 4 * a[4] : 0;
   if (order > 4) {
-    for (let k = 0; k < RADIAL_GRID.length; k++) if (slopeAt(a, order, RADIAL_GRID[k]) <= 0) return crossingIn(a, order, k);
-    return Infinity;
+    const k = barrierBracket(a, order);
+    return k < 0 ? Infinity : crossingIn(a, order, k);
   }
   // the first positive root r1 of b0 + b1 τ + b2 τ² (b0 > 0); the slope is ≤ 0 from r1 to the next root, if any
   let r1: number;
@@ -235,6 +295,58 @@ function smallestFirst(values: Float64Array, count: number): number[] {
   return out;
 }
 
+/**
+ * Per candidate direction ν: at [d (order + 1)] the harmonic part Σ_i w_i ν_i², at [d (order + 1) + n] the sum
+ * Σ_t c_t (Π_i s_i^e_t,i) ν^e_t of the order-n coupling — everything of a_n(ν) but the factor qA qB/R^(n+1), so
+ * the table serves every R of a pair (the last few pairs are kept).
+ */
+const sumCache = new Map<string, Float64Array>();
+function directionSums(
+  A: DrudeSpecies,
+  B: DrudeSpecies,
+  order: number,
+  scale: readonly number[],
+  polys: ReadonlyArray<{ n: number; terms: FlatTerms }>,
+): Float64Array {
+  const key = `${order}|${A.q},${A.m},${A.w}|${B.q},${B.m},${B.w}`;
+  const hit = sumCache.get(key);
+  if (hit) return hit;
+  const harmonic = [...A.w, ...B.w];
+  const directions = candidateDirections();
+  const width = order + 1;
+  const sums = new Float64Array(directions.length * width);
+  const scaledTerms = polys.map(({ terms }) =>
+    Float64Array.from(terms.c, (c, t) => {
+      let m = c;
+      for (let i = 0; i < 6; i++) if (terms.e[6 * t + i]) m *= scale[i] ** terms.e[6 * t + i];
+      return m;
+    }),
+  );
+  const monomials = polys.map(({ n }) => candidateMonomials(n));
+  for (let d = 0; d < directions.length; d++) {
+    const nu = directions[d];
+    let h = 0;
+    for (let i = 0; i < 6; i++) h += harmonic[i] * nu[i] * nu[i];
+    sums[d * width] = h;
+    for (let p = 0; p < polys.length; p++) {
+      const coeffs = scaledTerms[p], table = monomials[p], terms = coeffs.length;
+      let s = 0;
+      for (let t = 0, at = d * terms; t < terms; t++, at++) s += coeffs[t] * table[at];
+      sums[d * width + polys[p].n] = s;
+    }
+  }
+  if (sumCache.size >= 4) sumCache.delete(sumCache.keys().next().value!);
+  sumCache.set(key, sums);
+  return sums;
+}
+
+/** One scratch array kept between calls (fresh arrays are slow to touch on a busy machine). */
+let scratchArray = new Float64Array(0);
+const scratch = (length: number): Float64Array => {
+  if (scratchArray.length < length) scratchArray = new Float64Array(length);
+  return scratchArray.subarray(0, length);
+};
+
 /** Barrier check of the order-`order` multipole potential of the pair at separation R (bohr). */
 export function localisationCheck(A: DrudeSpecies, B: DrudeSpecies, order: number, R: number): LocalisationCheck {
   const catastropheR = catastropheDistance(A, B);
@@ -248,7 +360,8 @@ export function localisationCheck(A: DrudeSpecies, B: DrudeSpecies, order: numbe
     maxExponent = n;
   }
   const a = new Float64Array(order + 1);
-  const powers = new Float64Array(6 * (maxExponent + 1)); // x_i^e at 6 e + i
+  const powers = new Float64Array(6 * (maxExponent + 1)); // x_i^e at 6 e + i; powers[0] = 1 pads short terms
+  powers[0] = 1;
 
   /** First maximum τ_b of U along the unit direction ν (both signs of ν are separate rays). */
   const barrierAlong = (nu: readonly number[]): number => {
@@ -260,13 +373,11 @@ export function localisationCheck(A: DrudeSpecies, B: DrudeSpecies, order: numbe
     a.fill(0);
     for (let i = 0; i < 6; i++) a[2] += harmonic[i] * nu[i] * nu[i];
     for (const { n, terms, factor } of polys) {
-      const { c, factorStart, factor: index } = terms;
+      const { c, factor6 } = terms;
       let s = 0;
-      for (let t = 0; t < c.length; t++) {
-        let m = c[t];
-        for (let f = factorStart[t]; f < factorStart[t + 1]; f++) m *= powers[index[f]];
-        s += m;
-      }
+      // the factors of each term in order, then × 1 (powers[0]) for the missing ones: exact, so the same doubles
+      for (let t = 0, f = 0; t < c.length; t++, f += 6)
+        s += c[t] * powers[factor6[f]] * powers[factor6[f + 1]] * powers[factor6[f + 2]] * powers[factor6[f + 3]] * powers[factor6[f + 4]] * powers[factor6[f + 5]];
       a[n] += factor * s;
     }
     if (a[2] <= 0) return 0;
@@ -274,27 +385,37 @@ export function localisationCheck(A: DrudeSpecies, B: DrudeSpecies, order: numbe
   };
 
   // the candidate directions from their cached monomials: the term coefficients scaled once for this pair
-  const scaledTerms = polys.map(({ terms }) =>
-    Float64Array.from(terms.c, (c, t) => {
-      let m = c;
-      for (let i = 0; i < 6; i++) if (terms.e[6 * t + i]) m *= scale[i] ** terms.e[6 * t + i];
-      return m;
-    }),
-  );
-  const monomials = polys.map(({ n }) => candidateMonomials(n));
+  const sums = directionSums(A, B, order, scale, polys);
   const directions = candidateDirections();
   const taus = new Float64Array(directions.length);
+  // orders above 4: first only the bracketing grid point of each ray; the crossing itself is refined only for rays
+  // whose bracket reaches below the PATTERN_STARTS-th smallest bracket top (the others cannot be among the smallest
+  // barriers: they lie above their bracket's bottom), and those keep their bracket top (never among the smallest)
+  const bracketFirst = order > 4;
+  const coefficients = bracketFirst ? scratch(directions.length * (order + 1)) : undefined;
+  const brackets = bracketFirst ? new Int32Array(directions.length) : undefined;
+  const width = order + 1;
   for (let d = 0; d < directions.length; d++) {
-    const nu = directions[d];
     a.fill(0);
-    for (let i = 0; i < 6; i++) a[2] += harmonic[i] * nu[i] * nu[i];
-    for (let p = 0; p < polys.length; p++) {
-      const coeffs = scaledTerms[p], table = monomials[p], terms = coeffs.length;
-      let s = 0;
-      for (let t = 0, at = d * terms; t < terms; t++, at++) s += coeffs[t] * table[at];
-      a[polys[p].n] += polys[p].factor * s;
+    a[2] = sums[d * width];
+    for (const { n, factor } of polys) a[n] += factor * sums[d * width + n];
+    if (a[2] <= 0) taus[d] = 0;
+    else if (!bracketFirst) taus[d] = firstBarrier(a, order);
+    else {
+      const k = barrierBracket(a, order);
+      brackets![d] = k;
+      taus[d] = k < 0 ? Infinity : RADIAL_GRID[k];
+      coefficients!.set(a, d * (order + 1));
     }
-    taus[d] = a[2] <= 0 ? 0 : firstBarrier(a, order);
+  }
+  if (bracketFirst) {
+    const tops = smallestFirst(taus, PATTERN_STARTS);
+    const threshold = taus[tops[tops.length - 1]];
+    for (let d = 0; d < directions.length; d++) {
+      const k = brackets![d];
+      if (taus[d] === 0 || k < 0 || (k > 0 && RADIAL_GRID[k - 1] >= threshold)) continue;
+      taus[d] = crossingIn(coefficients!.subarray(d * (order + 1), (d + 1) * (order + 1)), order, k);
+    }
   }
   const starts = smallestFirst(taus, PATTERN_STARTS).map((d) => ({ nu: directions[d], tau: taus[d] }));
   let best = starts[0].tau;

@@ -5,14 +5,15 @@
  * itself, with no cancellation against the zero-point energy) and the multipole couplings V_n of
  * {@link circularCouplingTerms} (for a QDO M_p = −q r^p, so M^A M^B = qA qB r_A^pA r_B^pB). Centres must be
  * axially symmetric about the bond axis (wx = wy); isotropic QDOs are the common case.
- * The matrices are built once per basis and reused at every R.
+ * The matrices are built once per basis and reused at every R; a larger nested basis keeps them as its first rows
+ * ({@link growExactModel}).
  */
 import type { DrudeSpecies } from '../../model/drude.js';
 import type { Species } from '../../model/species.js';
 import { circularCouplingTerms, type CircularCouplingTerm } from './circular-coupling.js';
 import type { CircularMonomial } from './circular-states.js';
 import { pairBasis, type PairBasis } from './pair-basis.js';
-import { buildSparseOperator, combineGroups, type OperatorTerm, type SparseOperator } from './sparse-operator.js';
+import { buildSparseOperator, combineGroups, fullFromLower, type OperatorTerm, type SparseOperator } from './sparse-operator.js';
 
 /** Highest multipole order the exact engine accepts (R^-8 couplings: order 7 completes the first-order D8 of anisotropic centres). */
 export const MAX_EXACT_ORDER = 7;
@@ -31,8 +32,10 @@ export interface ExactModel {
   B: DrudeSpecies;
   order: number;
   basis: PairBasis;
-  /** Coupling matrices, group k holding qA qB V_(k+2) (multiply by R^-(k+3)). */
-  coupling: SparseOperator;
+  /** Coupling matrices, group k holding qA qB V_(k+2) (multiply by R^-(k+3)), as their lower triangle (what the solver uses). */
+  lower: SparseOperator;
+  /** The same with complete rows (formed from `lower` on first use; for callers that read whole rows). */
+  readonly coupling: SparseOperator;
   /** Unperturbed excitation energies of the basis functions, hartree. */
   excitation: Float64Array;
   /** mu_A,z = −qA zA and mu_B,z = −qB zB, e·a0. */
@@ -60,13 +63,24 @@ function lengthFactor(s: DrudeSpecies, mono: CircularMonomial): number {
 }
 
 /**
- * Weight of one coupling term: qA qB · [c · 2^((pA+qA+pB+qB)/2)] · lengths. L_z conservation makes pA+qA and
- * pB+qB of equal parity, so the power of √2 is whole and the bracket is an exact rational.
+ * One coupling term as an operator term: qA qB · [c · 2^((pA+qA+pB+qB)/2)] · lengths. L_z conservation makes
+ * pA+qA and pB+qB of equal parity, so the power of √2 is whole and the bracket is an exact dyadic rational (the
+ * coefficient); the species part qA qB · lengths is the scale, the same double for every term of one degree on each
+ * side of an isotropic pair.
  */
-function couplingWeight(A: DrudeSpecies, B: DrudeSpecies, t: CircularCouplingTerm): number {
-  const planar = t.a[0] + t.a[1] + t.b[0] + t.b[1];
-  const exact = t.exact.mul(2 ** (planar / 2)).valueOf();
-  return exact * (A.q * B.q * lengthFactor(A, t.a) * lengthFactor(B, t.b));
+const exactCoefficients = new WeakMap<CircularCouplingTerm, number>();
+function couplingOperatorTerm(A: DrudeSpecies, B: DrudeSpecies, t: CircularCouplingTerm): OperatorTerm {
+  let coefficient = exactCoefficients.get(t);
+  if (coefficient === undefined) {
+    const planar = t.a[0] + t.a[1] + t.b[0] + t.b[1];
+    exactCoefficients.set(t, (coefficient = t.exact.mul(2 ** (planar / 2)).valueOf()));
+  }
+  return {
+    coefficient,
+    scale: A.q * B.q * lengthFactor(A, t.a) * lengthFactor(B, t.b),
+    a: t.a,
+    b: t.b,
+  };
 }
 
 /** Build the model (species must pass {@link axialProblem}). */
@@ -77,39 +91,86 @@ export function exactModel(A: DrudeSpecies, B: DrudeSpecies, options: ExactModel
   }
   const order = options.order ?? 3;
   if (!Number.isInteger(order) || order < 2 || order > MAX_EXACT_ORDER) throw new RangeError(`order must be 2…${MAX_EXACT_ORDER}`);
-  const basis = pairBasis(options.maxQuanta, options.reduced ?? true);
-  const groups: OperatorTerm[][] = [];
-  for (let n = 2; n <= order; n++)
-    groups.push(circularCouplingTerms(n).map((t) => ({ weight: couplingWeight(A, B, t), a: t.a, b: t.b })));
-  const coupling = buildSparseOperator(basis, groups);
-  const none: CircularMonomial = [0, 0, 0], z: CircularMonomial = [0, 0, 1];
-  const dipoleA = buildSparseOperator(basis, [[{ weight: -A.q * lengthFactor(A, z), a: z, b: none }]]);
-  const dipoleB = buildSparseOperator(basis, [[{ weight: -B.q * lengthFactor(B, z), a: none, b: z }]]);
-  const { local } = basis;
-  const level = (s: DrudeSpecies, i: number) => s.w[0] * (local.nPlus[i] + local.nMinus[i]) + s.w[2] * local.nZ[i];
-  const excitation = Float64Array.from(basis.repA, (iA, k) => level(A, iA) + level(B, basis.repB[k]));
-  return { A, B, order, basis, coupling, excitation, dipoleA, dipoleB };
+  return assembleModel(A, B, order, pairBasis(options.maxQuanta, options.reduced ?? true));
 }
 
 /**
- * The Hamiltonian H − E0 at separation R (bohr): off-diagonal values on the coupling pattern and the diagonal,
+ * The same model on the nested basis of `maxQuanta` quanta: the rows it already has are kept (the basis for fewer
+ * quanta is a prefix of the larger one), only the new ones are computed. The old model stays valid.
+ */
+export function growExactModel(model: ExactModel, maxQuanta: number): ExactModel {
+  if (maxQuanta <= model.basis.maxQuanta) return model;
+  return assembleModel(model.A, model.B, model.order, pairBasis(maxQuanta, model.basis.reduced), model);
+}
+
+function assembleModel(A: DrudeSpecies, B: DrudeSpecies, order: number, basis: PairBasis, previous?: ExactModel): ExactModel {
+  const groups: OperatorTerm[][] = [];
+  for (let n = 2; n <= order; n++)
+    groups.push(circularCouplingTerms(n).map((t) => couplingOperatorTerm(A, B, t)));
+  const lower = buildSparseOperator(basis, groups, previous?.lower);
+  const none: CircularMonomial = [0, 0, 0], z: CircularMonomial = [0, 0, 1];
+  const dipoleA = buildSparseOperator(basis, [[{ coefficient: 1, scale: -A.q * lengthFactor(A, z), a: z, b: none }]], previous?.dipoleA);
+  const dipoleB = buildSparseOperator(basis, [[{ coefficient: 1, scale: -B.q * lengthFactor(B, z), a: none, b: z }]], previous?.dipoleB);
+  const { local } = basis;
+  const level = (s: DrudeSpecies, i: number) => s.w[0] * (local.nPlus[i] + local.nMinus[i]) + s.w[2] * local.nZ[i];
+  const excitation = Float64Array.from(basis.repA, (iA, k) => level(A, iA) + level(B, basis.repB[k]));
+  let full: SparseOperator | undefined;
+  return {
+    A,
+    B,
+    order,
+    basis,
+    lower,
+    get coupling() {
+      return (full ??= fullFromLower(lower));
+    },
+    excitation,
+    dipoleA,
+    dipoleB,
+  };
+}
+
+/**
+ * The Hamiltonian H − E0 at separation R (bohr): off-diagonal values on one coupling pattern and the diagonal,
  * filled for the leading `rows` basis functions (default all). A nested basis of N quanta needs only its prefix, so
  * a solver that stays well below the model's size fills the rest only when it gets there ({@link extendHamiltonian}).
+ * `pattern` is the operator whose entries `values` follows: `model.coupling` (complete rows, the default) or
+ * `model.lower` (the lower triangle, what the solver uses: half the entries).
  */
 export interface PairHamiltonianValues {
   values: Float64Array;
   diagonal: Float64Array;
   /** Rows filled so far. */
   rows: number;
+  pattern: SparseOperator;
+  /** The separation the rows were filled for, bohr. */
+  R: number;
 }
 
-export function hamiltonianAt(model: ExactModel, R: number, rows = model.basis.size, reuse?: PairHamiltonianValues): PairHamiltonianValues {
-  // `reuse`: the arrays of an earlier R on the same model (a curve visits many R; fresh arrays are slow to touch)
-  const H: PairHamiltonianValues =
-    reuse && reuse.values.length === model.coupling.col.length
-      ? { values: reuse.values, diagonal: reuse.diagonal, rows: 0 }
-      : { values: new Float64Array(model.coupling.col.length), diagonal: new Float64Array(model.basis.size), rows: 0 };
-  H.diagonal.set(model.excitation);
+/** A view of `length` doubles on the buffer of `old` when it has room, else a fresh array with room for `capacity`. */
+function roomFor(old: Float64Array | undefined, length: number, capacity: number): Float64Array {
+  if (old && old.buffer.byteLength >= 8 * length) return new Float64Array(old.buffer, 0, length);
+  return new Float64Array(new ArrayBuffer(8 * Math.max(length, capacity)), 0, length);
+}
+
+export function hamiltonianAt(
+  model: ExactModel,
+  R: number,
+  rows = model.basis.size,
+  reuse?: PairHamiltonianValues,
+  storage: 'full' | 'lower' = 'full',
+): PairHamiltonianValues {
+  const pattern = storage === 'lower' ? model.lower : model.coupling;
+  // `reuse`: the arrays of an earlier R or a smaller model (a curve visits many R and grows its basis; fresh arrays
+  // are slow to touch). Lower-triangle rows are the same in a grown model, so at the same R they are kept.
+  const n = model.basis.size;
+  const values = roomFor(reuse?.values, pattern.col.length, pattern.store ? pattern.store.col.length : 0);
+  const diagonal = roomFor(reuse?.diagonal, n, pattern.store ? pattern.store.rowPtr.length - 1 : 0);
+  const keep =
+    reuse && reuse.R === R && reuse.pattern.store !== undefined && reuse.pattern.store === pattern.store && values.buffer === reuse.values.buffer
+      ? Math.min(reuse.rows, n)
+      : 0;
+  const H: PairHamiltonianValues = { values, diagonal, rows: keep, pattern, R };
   extendHamiltonian(model, R, H, rows);
   return H;
 }
@@ -118,13 +179,14 @@ export function hamiltonianAt(model: ExactModel, R: number, rows = model.basis.s
 export function extendHamiltonian(model: ExactModel, R: number, H: PairHamiltonianValues, rows: number): void {
   const end = Math.min(rows, model.basis.size);
   if (end <= H.rows) return;
-  const { rowPtr, col } = model.coupling;
+  const { rowPtr, col } = H.pattern;
+  H.diagonal.set(model.excitation.subarray(H.rows, end), H.rows);
   combineGroups(
-    model.coupling,
-    model.coupling.values.map((_, k) => R ** -(k + 3)),
+    H.pattern,
+    H.pattern.groups.map((_, k) => R ** -(k + 3)),
     H.values,
-    rowPtr[H.rows],
-    rowPtr[end],
+    H.rows,
+    end,
   );
   for (let i = H.rows; i < end; i++)
     for (let k = rowPtr[i]; k < rowPtr[i + 1]; k++)

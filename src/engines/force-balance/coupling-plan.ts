@@ -62,7 +62,8 @@ function orderPlan(order: number): OrderPlan {
     for (let c = 0; c < 6; c++) if (exponent(key, c) >= 2) visit(key - (2 << (EXPONENT_BITS * c)));
   };
   for (const key of vMap.keys()) visit(key);
-  const pKeys = Int32Array.from([...reach].sort((a, b) => degreeOf(b) - degreeOf(a) || a - b));
+  const degrees = new Map([...reach].map((key) => [key, degreeOf(key)]));
+  const pKeys = Int32Array.from([...reach].sort((a, b) => degrees.get(b)! - degrees.get(a)! || a - b));
   const index = new Map<number, number>();
   pKeys.forEach((key, i) => index.set(key, i));
   const lowerStart = new Int32Array(pKeys.length + 1);
@@ -116,9 +117,17 @@ function productPlan(n: number, nP: number): ProductPlan {
   const V = orderPlan(n), P = orderPlan(nP);
   const vIndex: number[] = [], pIndex: number[] = [], monomial: number[] = [];
   const monomials = new Map<number, number>();
+  // P's terms by parity class, ascending: the pairs (i, j) visited below are those of the full double loop whose
+  // parities agree, in the same order (so the plan, and every sum over it, is the same)
+  const byParity = new Map<number, number[]>();
+  for (let j = 0; j < P.pKeys.length; j++) {
+    const parity = P.pKeys[j] & PARITY_BITS;
+    const list = byParity.get(parity);
+    if (list) list.push(j);
+    else byParity.set(parity, [j]);
+  }
   for (let i = 0; i < V.vKeys.length; i++)
-    for (let j = 0; j < P.pKeys.length; j++) {
-      if ((V.vKeys[i] & PARITY_BITS) !== (P.pKeys[j] & PARITY_BITS)) continue;
+    for (const j of byParity.get(V.vKeys[i] & PARITY_BITS) ?? []) {
       const key = V.vKeys[i] + P.pKeys[j];
       if (!monomials.has(key)) monomials.set(key, monomials.size);
       vIndex.push(i);

@@ -24,10 +24,21 @@
  */
 import type { Vec3 } from '../../model/types.js';
 import type { VectorCoefficients } from '../route.js';
-import { AXIS_MONOMIALS } from '../../hamiltonian/monomial.js';
+import { AXIS_MONOMIALS, type Monomial } from '../../hamiltonian/monomial.js';
 import { couplingTerms } from '../../hamiltonian/multipole-coupling.js';
 import type { LocalSpace } from './local-space.js';
-import { applyCoupling, applyLocal, couplingDot, dot, groundState, localDot, reducedResolvent, type ProductVector } from './product-vector.js';
+import {
+  compactSpace,
+  couplingDotGrid as couplingDot,
+  couplingOnGround,
+  gridDot as dot,
+  groundAmplitude,
+  groundGrid,
+  localDotGrid as localDot,
+  momentOnGround,
+  resolventGrid,
+  type ProductGrid,
+} from './product-grid.js';
 
 export interface PerturbationOptions {
   /** Highest dispersion power 2N computed (6, 8 or 10). Default 10. */
@@ -38,7 +49,8 @@ export interface PerturbationOptions {
    * Which centres are spherical (true: both). A spherical centre has no permanent moments, so the first-order dipole
    * of its partner and the first-order energies vanish by symmetry and are set to exactly 0 (a Cartesian sum would
    * leave rounding residue); with both spherical the V2·V5 chain of D9 vanishes too (exact/series-terms.ts) and is
-   * skipped. Default: neither.
+   * skipped, and the pair is symmetric under rotations about the axis, so the x and y components of the dipoles
+   * vanish and are set to exactly 0 (only z is computed). Default: neither.
    */
   spherical?: boolean | readonly [a: boolean, b: boolean];
 }
@@ -56,50 +68,65 @@ export const DIPOLE_CHAINS: Readonly<Record<7 | 9, ReadonlyArray<readonly [numbe
 };
 
 /** C6, C8, C10 and the D7 (D9) vectors of a pair of local spaces by RSPT. */
-export function perturbationCoefficients(A: LocalSpace, B: LocalSpace, options: PerturbationOptions = {}): PerturbationCoefficients {
+export function perturbationCoefficients(localA: LocalSpace, localB: LocalSpace, options: PerturbationOptions = {}): PerturbationCoefficients {
   const maxPower = options.maxEnergyPower ?? 10;
   const dipolePower = options.maxDipolePower ?? 9;
   const [sphericalA, sphericalB] = options.spherical === true ? [true, true] : options.spherical === false || options.spherical === undefined ? [false, false] : options.spherical;
   const spherical = sphericalA && sphericalB;
   const firstOrder = !spherical;
-  const zero = groundState();
-  const V0cache = new Map<number, ProductVector>(); // V_n |0>
-  const phiCache = new Map<number, ProductVector>(); // R0 V_n |0>
-  const V0 = (n: number): ProductVector => {
+  // product vectors on typed arrays over densely numbered local states (product-grid.ts)
+  const A = compactSpace(localA), B = compactSpace(localB);
+  const V0cache = new Map<number, ProductGrid>(); // V_n |0>
+  const phiCache = new Map<number, ProductGrid>(); // R0 V_n |0>
+  const V0 = (n: number): ProductGrid => {
     let v = V0cache.get(n);
-    if (!v) V0cache.set(n, (v = applyCoupling(couplingTerms(n), zero, A, B)));
+    if (!v) V0cache.set(n, (v = couplingOnGround(couplingTerms(n), A, B)));
     return v;
   };
-  const phi = (n: number): ProductVector => {
+  const phi = (n: number): ProductGrid => {
     let v = phiCache.get(n);
-    if (!v) phiCache.set(n, (v = reducedResolvent(V0(n), A, B)));
+    if (!v) phiCache.set(n, (v = resolventGrid(V0(n), A, B)));
     return v;
   };
-  const E1 = (n: number): number => V0(n).get(0) ?? 0;
+  const ground = groundGrid();
+  /** <0|V_n|0>: from V_n|0> when it is built anyway, else as a matrix element (V_n|0> is not needed). */
+  const E1 = (n: number): number => {
+    const v = V0cache.get(n);
+    return v ? groundAmplitude(v) : couplingDot(couplingTerms(n), ground, ground, A, B);
+  };
+  /**
+   * C_P = Σ_{n+m=P−2} <0|V_n R0 V_m|0>, each unordered pair once: <0|V_n R0 V_m|0> = <φ_n|V_m|0> = <0|V_m R0 V_n|0>
+   * (R0 and V symmetric), with the smaller order on φ, so V_m|0> is never built for the high orders of C10.
+   */
   const C = (power: number): number => {
     let s = 0;
-    for (let n = 2; n <= power - 4; n++) s += dot(V0(n), phi(power - 2 - n));
+    for (let n = 2; 2 * n <= power - 2; n++) {
+      const m = power - 2 - n;
+      s += (n === m ? 1 : 2) * couplingDot(couplingTerms(m), ground, phi(n), A, B);
+    }
     return s;
   };
 
   /**
-   * The coefficient of λ_n λ_n' in <mu>, for every dipole component of both centres. The term 2<0|mu|ψ_{nn'}> is
+   * The coefficient of λ_n λ_n' in <mu>, for every dipole component of both centres (z only for two spherical
+   * centres: x and y vanish by the rotational symmetry about the axis). The term 2<0|mu|ψ_{nn'}> is
    * evaluated from the other side, 2<χ|(V_n − E1_n)|φ_n'> + 2<χ|(V_n' − E1_n')|φ_n> with χ = R0 mu|0> (V and R0 are
    * symmetric): V then acts on the few states of χ instead of on φ, the same sum over the same truncated space.
    */
   const mixed = (n: number, np: number) => {
     const overlap = dot(phi(n), phi(np));
-    return (on: 'a' | 'b'): Vec3 =>
-      AXIS_MONOMIALS.map((p) => {
-        const mu0 = applyLocal(p, on, zero, A, B);
-        const chi = reducedResolvent(mu0, A, B);
-        const viaPsi =
-          couplingDot(couplingTerms(n), chi, phi(np), A, B) -
-          E1(n) * dot(chi, phi(np)) +
-          couplingDot(couplingTerms(np), chi, phi(n), A, B) -
-          E1(np) * dot(chi, phi(n));
-        return 2 * viaPsi + 2 * localDot(p, on, phi(n), phi(np), A, B) - 2 * overlap * (mu0.get(0) ?? 0);
-      }) as Vec3;
+    const component = (p: Monomial, on: 'a' | 'b'): number => {
+      if (spherical && p !== AXIS_MONOMIALS[2]) return 0;
+      const mu0 = momentOnGround(p, on, A, B);
+      const chi = resolventGrid(mu0, A, B);
+      const viaPsi =
+        couplingDot(couplingTerms(n), chi, phi(np), A, B) -
+        E1(n) * dot(chi, phi(np)) +
+        couplingDot(couplingTerms(np), chi, phi(n), A, B) -
+        E1(np) * dot(chi, phi(n));
+      return 2 * viaPsi + 2 * localDot(p, on, phi(n), phi(np), A, B) - 2 * overlap * groundAmplitude(mu0);
+    };
+    return (on: 'a' | 'b'): Vec3 => AXIS_MONOMIALS.map((p) => component(p, on)) as Vec3;
   };
   const dipoleSeries = (power: 7 | 9) => {
     const chains = DIPOLE_CHAINS[power].filter(([n, np]) => !(spherical && n === 2 && np === 5));
@@ -110,7 +137,7 @@ export function perturbationCoefficients(A: LocalSpace, B: LocalSpace, options: 
   const none: Vec3 = [0, 0, 0];
   /** First-order dipole from V_n: −2<0|mu|φ_n> (zero when the partner is spherical: no permanent moments). */
   const firstOrderDipole = (n: number, on: 'a' | 'b'): Vec3 =>
-    (on === 'a' ? sphericalB : sphericalA) ? none : (AXIS_MONOMIALS.map((p) => -2 * dot(applyLocal(p, on, zero, A, B), phi(n))) as Vec3);
+    (on === 'a' ? sphericalB : sphericalA) ? none : (AXIS_MONOMIALS.map((p) => -2 * dot(momentOnGround(p, on, A, B), phi(n))) as Vec3);
   const firstOrderEnergy = (n: number): number => (sphericalA || sphericalB ? 0 : E1(n));
 
   const D7 = dipoleSeries(7);
