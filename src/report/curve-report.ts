@@ -13,7 +13,7 @@ import { orderCompleteness, type OrderCompleteness } from '../engines/exact/seri
 import { describeSpecies, sourceInBrief, type Species } from '../model/species.js';
 import { bohrToAngstrom, dipoleAuToDebye, energyFromHartree, energyUnitText, type EnergyUnit } from '../model/units.js';
 import { VERSION } from '../version.js';
-import { csvField, DEFAULT_DIGITS, formatColumns, sig, textTable } from './format.js';
+import { csvField, DEFAULT_DIGITS, formatColumns, sig, sigDigits, textTable } from './format.js';
 import { speciesToJson } from './species-json.js';
 
 export type LengthUnit = 'bohr' | 'angstrom';
@@ -158,8 +158,19 @@ function header(d: CurveData, o: CurveUnits): string[] {
   }
   const law = seriesLaw(c);
   lines.push(`  series: mu ≈ ${law.dipole} (complete through R^-${law.dipoleThrough}), E ≈ ${law.energy} (complete through R^-8); "÷ser−1" = exact ÷ series − 1`);
-  lines.push(`  basis converged to ${d.tolerance} (relative) per point; N = total quanta, dim = basis dimension after the L_z = 0 and mirror reduction (unreduced: C(N+6, 6), in --json and --csv)`);
+  lines.push(`  basis converged to ${d.tolerance} (relative) per point (the ÷ser−1 columns show the digits above that); N = total quanta, dim = basis dimension after the L_z = 0 and mirror reduction (unreduced: C(N+6, 6), in --json and --csv)`);
   return lines;
+}
+
+/**
+ * An "exact ÷ series − 1" cell to the digits it carries: the exact value is converged to `tolerance` (relative), so
+ * the residual is known to about ±tolerance; at most `digits` significant digits, at least one, in exponent form
+ * (JSON and CSV keep every digit).
+ */
+function residualCell(x: number, tolerance: number, digits: number): string {
+  if (!Number.isFinite(x) || x === 0) return sigDigits(x, digits, 'exponent');
+  const carried = Math.floor(Math.log10(Math.abs(x) / tolerance)) + 1;
+  return sigDigits(x, Math.max(1, Math.min(digits, carried)), 'exponent');
 }
 
 /** The human table of `dispole curve`: `digits` significant digits, one notation per column. */
@@ -182,9 +193,9 @@ export function curveToText(d: CurveData, options: (CurveUnits & { digits?: numb
         u.mu(r.asymptotic.muTotal),
         u.e(r.energy),
         u.e(r.asymptotic.energy),
-        r.seriesResidual.muA,
-        r.seriesResidual.muB,
-        r.seriesResidual.energy,
+        residualCell(r.seriesResidual.muA, d.tolerance, o.digits ?? DEFAULT_DIGITS),
+        residualCell(r.seriesResidual.muB, d.tolerance, o.digits ?? DEFAULT_DIGITS),
+        residualCell(r.seriesResidual.energy, d.tolerance, o.digits ?? DEFAULT_DIGITS),
         String(r.quanta),
         String(r.dimension),
         r.trusted ? 'ok' : r.converged ? 'UNTRUSTED' : 'UNCONVERGED',

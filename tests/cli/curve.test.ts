@@ -165,6 +165,21 @@ describe('dispole curve: series through D9 (and D10) and a default order that ma
     const noD10 = slope((p) => p.muA / (c.D7.a / p.R_bohr ** 7 + c.D9.a / p.R_bohr ** 9) - 1);
     expect(noD10.some((s) => Math.abs(s + 4) / 4 > 0.1)).toBe(true);
   });
+  test('the ÷ser−1 cells show only the digits above the basis tolerance (the residual is known to about ±tolerance); JSON keeps all', async () => {
+    const args = ['curve', 'Quelon', 'Virid', '--from', '10', '--to', '100', '--points', '4', '--basis-tol', '1e-8', '--length', 'bohr'];
+    const text = (await run(args)).out;
+    const pts: Point[] = (await json(args)).points;
+    const rows = dataRows(text);
+    expect(rows).toHaveLength(4);
+    rows.forEach((row, i) => {
+      const cell = row.trim().split(/\s+/)[9]; // the A ÷ser−1 column
+      const x = pts[i].seriesResidual.muA;
+      const digits = cell.replace(/e.*$/, '').replace(/[-.]/g, '').length;
+      expect(digits).toBe(Math.max(1, Math.min(7, Math.floor(Math.log10(Math.abs(x) / 1e-8)) + 1)));
+      expect(Math.abs(Number(cell) - x)).toBeLessThanOrEqual(Math.abs(x) * 10 ** (1 - digits));
+    });
+    expect(rows.some((row) => row.trim().split(/\s+/)[9].replace(/e.*$/, '').replace(/[-.]/g, '').length < 7)).toBe(true); // the far points lose digits
+  });
   test('anisotropic pair: the default order 7 includes D8 (V7); --order 6 lacks exactly that first-order term', async () => {
     const args = ['curve', PROLATE, OBLATE, '--from', '30', '--to', '60', '--points', '2', '--basis-tol', '1e-12'];
     const def = await json(args);
