@@ -11,6 +11,7 @@ import { InputError } from './errors.js';
 import { hydrogenic } from './hydrogenic.js';
 import { parseInlineSpecies } from './species-kinds.js';
 import type { Species } from './species.js';
+import { closestName } from './closest-name.js';
 
 const INVENTED = 'invented for the worked examples (fictional moon Tessaly); not a real substance';
 
@@ -131,8 +132,9 @@ export function resolveSpecies(token: string, fromFile?: ReadonlyMap<string, Spe
   if (hit) return hit;
   const names = [...new Set(all.map((s) => s.name))]; // each name once
   const fileNames = [...(fromFile?.keys() ?? [])].filter((n) => !names.includes(n));
+  const meant = token.trim() === '' ? undefined : closestName(token, [...names, ...fileNames]);
   throw new InputError(
     token.trim() === '' ? 'species' : token,
-    `${token.trim() === '' ? 'is empty' : 'is not a known species'}; use a built-in name (${names.join(', ')}), a name from --species FILE${fileNames.length ? ` (${fileNames.join(', ')})` : ''}, or an inline spec like drude:q=1.2,m=0.4,w=0.9 or tdhf:Ar (closed-shell atom or ion by time-dependent Hartree–Fock, e.g. tdhf:Z=11,charge=1)`,
+    `${token.trim() === '' ? 'is empty' : `is not a known species${meant ? ` (did you mean ${meant}?)` : ''}`}; use a built-in name (${names.join(', ')}), a name from --species FILE${fileNames.length ? ` (${fileNames.join(', ')})` : ''}, or an inline spec like drude:q=1.2,m=0.4,w=0.9 or tdhf:Ar (closed-shell atom or ion by time-dependent Hartree–Fock, e.g. tdhf:Z=11,charge=1)`,
   );
 }

@@ -113,6 +113,11 @@ describe('bad input is refused with a message naming the problem', () => {
   test('assignments, unknown functions, other operators and empty input', () => {
     expect(refuse('D = qa')).toBe('expression: is an assignment; give only the right-hand side (the formula itself)');
     expect(refuse('gamma(qa)')).toBe('expression: unknown function gamma; allowed: sqrt, cbrt, exp, log, abs');
+    expect(refuse('toString()')).toBe('expression: unknown function toString; allowed: sqrt, cbrt, exp, log, abs');
+    expect(refuse('foo(qa, qb)')).toBe('expression: unknown function foo; allowed: sqrt, cbrt, exp, log, abs');
+    expect(refuse('qa()')).toBe('expression: qa() has empty parentheses: write qa');
+    expect(refuse('qa(qb, ma)')).toBe('expression: qa(…) with 2 arguments: write qa*(…) for a product');
+    expect(refuse('sqrt(qa, qb)')).toBe('expression: sqrt takes one argument, got 2');
     expect(refuse('qa > 1')).toBe('expression: uses the operator ">"; allowed: + - * / ^ and parentheses');
     expect(refuse('  ')).toBe('expression: is empty; give a formula in qa, ma, wa, qb, mb, wb, alphaa, alphab');
     expect(refuse('qa/(wa - wa)')).toBe('expression: divides by something that is identically zero');

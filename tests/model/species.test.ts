@@ -1,4 +1,5 @@
 import { describe, expect, test } from 'vitest';
+import { closestName } from '../../src/model/closest-name.js';
 import { drude, drudeAnisotropic, drudeFromTargets, drudeMultipolePolarisability, drudePolarisability } from '../../src/model/drude.js';
 import { InputError } from '../../src/model/errors.js';
 import { parseInlineSpecies } from '../../src/model/species-kinds.js';
@@ -95,6 +96,15 @@ describe('inline specs and species files', () => {
   test('names resolve case-insensitively; unknown names list what exists', () => {
     expect(resolveSpecies('quelon').name).toBe('Quelon');
     expect(messageOf(() => resolveSpecies('Nope'))).toMatch(/^Nope: is not a known species; use a built-in name \(Quelon, /);
+  });
+  test('a near-miss name is suggested (one swap, one letter); nothing when no name is close or two are equally close', () => {
+    expect(messageOf(() => resolveSpecies('Virdi'))).toMatch(/^Virdi: is not a known species \(did you mean Virid\?\); use a built-in name/);
+    expect(messageOf(() => resolveSpecies('Qelon'))).toMatch(/\(did you mean Quelon\?\)/);
+    expect(messageOf(() => resolveSpecies('Nope'))).not.toMatch(/did you mean/);
+    expect(closestName('Ax', ['Ar', 'Xe', 'Kr'])).toBe('Ar');
+    expect(closestName('Hx', ['He', 'H2'])).toBeUndefined(); // He and H2 are both one letter away
+    expect(closestName('tarnett', ['Tarnet'])).toBe('Tarnet');
+    expect(closestName('Spindle', ['Spindlet', 'Sorrel'])).toBe('Spindlet');
   });
   test('every demo species says it is invented', () => {
     for (const s of demoSpecies) expect(s.source).toMatch(/invented/);

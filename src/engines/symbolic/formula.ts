@@ -117,7 +117,10 @@ export function parseFormula(source: string, table: SymbolTable, allowed: readon
         if (f.fn.type !== 'SymbolNode') throw new InputError(FIELD, `calls something that is not a name; allowed functions: ${[...FUNCTIONS.keys()].join(', ')}`);
         if (f.args.length !== 1) {
           const name = f.fn.name;
-          throw new InputError(FIELD, FUNCTIONS.has(name) ? `${name} takes one argument, got ${f.args.length}` : `${name}(…) with ${f.args.length} arguments: write ${name}*(…)`);
+          if (FUNCTIONS.has(name)) throw new InputError(FIELD, `${name} takes one argument, got ${f.args.length}`);
+          // a parameter written as a call: a product was meant, or (empty parentheses) the name alone
+          if (allowed.includes(name)) throw new InputError(FIELD, f.args.length === 0 ? `${name}() has empty parentheses: write ${name}` : `${name}(…) with ${f.args.length} arguments: write ${name}*(…) for a product`);
+          // any other name: reported with the unknown functions below (its symbol is visited next)
         }
         return;
       }
