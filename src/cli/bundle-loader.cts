@@ -17,10 +17,10 @@ import { dirname } from 'node:path';
 import { Script } from 'node:vm';
 
 /** Set to 1 by `npm run build` for the one run that records the code cache. */
-export const RECORD_CODE_CACHE_VARIABLE = 'DISPOLE_RECORD_CODE_CACHE';
+const RECORD_CODE_CACHE_VARIABLE = 'DISPOLE_RECORD_CODE_CACHE';
 
 /** The code cache's file beside the bundle. */
-export function codeCachePath(bundleFile: string): string {
+function codeCachePath(bundleFile: string): string {
   return `${bundleFile}.v8cache`;
 }
 

@@ -30,7 +30,7 @@ const oddDoubleFactorial = (k: number): bigint => {
 };
 
 /** The coefficient a_p of d_x^p0 d_y^p1 d_z^p2 in 1/|ẑ + d| (exact; zero when p0 or p1 is odd). */
-function taylorCoefficient(p: Monomial): Fraction {
+export function taylorCoefficient(p: Monomial): Fraction {
   if (p[0] % 2 !== 0 || p[1] % 2 !== 0) return new Fraction(0);
   const a = p[0] / 2, b = p[1] / 2, n = p[2];
   // common denominator 2^K · a! b! · (the i! m! of each term folded into the numerator over n!·2^K)

@@ -11,8 +11,8 @@
  * Σ e_i e_j /|R ẑ + r_j − r_i| (common practice; e.g. A. J. Stone, The Theory of Intermolecular Forces, 2013).
  */
 import Fraction from 'fraction.js';
-import { inverseDistanceTaylor } from './inverse-distance-taylor.js';
-import { type Monomial, degree } from './monomial.js';
+import { taylorCoefficient } from './inverse-distance-taylor.js';
+import { type Monomial, degree, monomialsOfDegree } from './monomial.js';
 import { binomial } from '../math/combinatorics.js';
 
 /** One term c · M^A_{pA} M^B_{pB} / R^(order+1). */
@@ -36,8 +36,9 @@ export function couplingTerms(order: number): CouplingTerm[] {
   const hit = cache.get(order);
   if (hit) return hit;
   const out: CouplingTerm[] = [];
-  for (const { p, c: a } of inverseDistanceTaylor(order).values()) {
-    if (degree(p) !== order) continue;
+  for (const p of monomialsOfDegree(order)) {
+    const a = taylorCoefficient(p);
+    if (a.equals(0)) continue;
     for (let kx = 0; kx <= p[0]; kx++)
       for (let ky = 0; ky <= p[1]; ky++)
         for (let kz = 0; kz <= p[2]; kz++) {

@@ -8,15 +8,8 @@ import { describe, expect, test } from 'vitest';
 import { hydrogenic } from '../../src/model/hydrogenic.js';
 import { couplingTerms } from '../../src/hamiltonian/multipole-coupling.js';
 import { AXIS_MONOMIALS } from '../../src/hamiltonian/monomial.js';
-import {
-  applyCoupling,
-  applyLocal,
-  couplingDot,
-  dot,
-  groundState,
-  localDot,
-  reducedResolvent,
-} from '../../src/engines/perturbation/product-vector.js';
+import { applyCoupling, applyLocal, dot, groundState, reducedResolvent } from '../../src/engines/perturbation/product-vector.js';
+import { couplingDot, localDot } from '../helpers/map-matrix-elements.js';
 import type { LocalSpace } from '../../src/engines/perturbation/local-space.js';
 import { localSpaceOf } from '../../src/engines/capabilities.js';
 import { relDiff } from '../helpers/tolerance.js';

@@ -19,7 +19,8 @@ import { AXIS_MONOMIALS, type Monomial, monomialsOfDegree } from '../../src/hami
 import { couplingTerms } from '../../src/hamiltonian/multipole-coupling.js';
 import { hydrogenic } from '../../src/model/hydrogenic.js';
 import type { Vec3 } from '../../src/model/types.js';
-import { applyCoupling, applyLocal, couplingDot, dot, groundState, localDot, reducedResolvent, type ProductVector } from '../../src/engines/perturbation/product-vector.js';
+import { applyCoupling, applyLocal, dot, groundState, reducedResolvent, type ProductVector } from '../../src/engines/perturbation/product-vector.js';
+import { couplingDot, localDot } from '../helpers/map-matrix-elements.js';
 import type { LocalSpace } from '../../src/engines/perturbation/local-space.js';
 import { DIPOLE_CHAINS, perturbationCoefficients } from '../../src/engines/perturbation/rspt.js';
 import { localSpaceOf } from '../../src/engines/capabilities.js';

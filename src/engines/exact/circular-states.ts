@@ -117,20 +117,6 @@ export function ladderMonomialAction(states: LocalStates, mono: CircularMonomial
   return { targets: Int32Array.from(targets), amps: Float64Array.from(amps) };
 }
 
-/** A cache of {@link ladderMonomialAction} for one set of local states. */
-export function ladderActionCache(states: LocalStates): (mono: CircularMonomial, i: number) => LocalAction {
-  const cache = new Map<number, LocalAction>();
-  return (mono, i) => {
-    const key = ((mono[0] * 16 + mono[1]) * 16 + mono[2]) * states.count + i;
-    let hit = cache.get(key);
-    if (!hit) {
-      hit = ladderMonomialAction(states, mono, i);
-      cache.set(key, hit);
-    }
-    return hit;
-  };
-}
-
 /**
  * sqrt(max(n, n')! / min(n, n')!) for one mode: every amplitude <n'|(a + a†)^r ...|n> of a ladder monomial is an
  * integer multiple of it (normal ordering gives integer coefficients, and (a†)^p a^q|n> = sqrt(n!/(n−q)!)
